@@ -1,0 +1,96 @@
+using System.Globalization;
+using Lumen.Spectra;
+
+namespace Lumen.Cie;
+
+/// <summary>
+/// One CIE data table on a regular whole-nanometre grid: a wavelength column and named value columns.
+/// </summary>
+/// <remarks>Loaded from Lumen's embedded copy of the CIE datasets (data-cie/README.md, CC BY-SA 4.0, the CIE).
+/// A value the CIE publishes as NaN ("no value in the source publication") is read as 0, as the CIE
+/// metadata's <c>extrapolationMethod: zero</c> says.</remarks>
+public sealed class CieTable
+{
+    private readonly Dictionary<string, double[]> _columns;
+
+    internal CieTable(string name, int startNm, int stepNm, IReadOnlyList<string> columnNames, Dictionary<string, double[]> columns)
+    {
+        Name = name;
+        StartNm = startNm;
+        StepNm = stepNm;
+        ColumnNames = columnNames;
+        _columns = columns;
+        Count = columns[columnNames[0]].Length;
+    }
+
+    /// <summary>The table's file name in data-cie (without extension).</summary>
+    public string Name { get; }
+
+    /// <summary>First wavelength, nm.</summary>
+    public int StartNm { get; }
+
+    /// <summary>Wavelength step, nm.</summary>
+    public int StepNm { get; }
+
+    /// <summary>Number of rows.</summary>
+    public int Count { get; }
+
+    /// <summary>Last wavelength, nm.</summary>
+    public int EndNm => StartNm + (Count - 1) * StepNm;
+
+    /// <summary>Names of the value columns, in file order.</summary>
+    public IReadOnlyList<string> ColumnNames { get; }
+
+    /// <summary>The values of one column.</summary>
+    /// <param name="column">Column name, e.g. <c>y_bar</c>.</param>
+    /// <returns>The values, row by row.</returns>
+    /// <exception cref="KeyNotFoundException">No such column.</exception>
+    public ReadOnlySpan<double> Column(string column) => _columns[column];
+
+    /// <summary>A column's value at a wavelength on the table's grid; 0 outside the table.</summary>
+    /// <param name="column">Column name.</param>
+    /// <param name="wavelengthNm">Wavelength in nm, a grid point.</param>
+    /// <returns>The value, or 0 outside the range.</returns>
+    public double At(string column, int wavelengthNm)
+    {
+        int offset = wavelengthNm - StartNm;
+        if (offset < 0 || offset % StepNm != 0) return 0;
+        int i = offset / StepNm;
+        return i < Count ? _columns[column][i] : 0;
+    }
+
+    /// <summary>One column as a relative spectrum.</summary>
+    /// <param name="column">Column name.</param>
+    /// <returns>The spectrum, named after the column, origin <c>CIE table name</c>.</returns>
+    public Spectrum ToSpectrum(string column)
+    {
+        var w = new double[Count];
+        for (int i = 0; i < Count; i++) w[i] = StartNm + i * StepNm;
+        return new Spectrum(w, _columns[column], SpectralUnit.Relative, column, SpectrumOrigin.Generated($"CIE {Name}"));
+    }
+
+    internal static CieTable Parse(string name, TextReader reader)
+    {
+        string header = reader.ReadLine() ?? throw new InvalidDataException($"data-cie/{name}.csv is empty.");
+        var names = header.Split(',').Skip(1).ToArray();
+        var wavelengths = new List<int>();
+        var cols = names.Select(_ => new List<double>()).ToArray();
+        string? line;
+        int lineNo = 1;
+        while ((line = reader.ReadLine()) is not null)
+        {
+            lineNo++;
+            if (line.Length == 0) continue;
+            var cells = line.Split(',');
+            if (cells.Length != names.Length + 1)
+                throw new InvalidDataException($"data-cie/{name}.csv line {lineNo}: expected {names.Length + 1} cells.");
+            wavelengths.Add(int.Parse(cells[0], NumberStyles.Integer, CultureInfo.InvariantCulture));
+            for (int c = 0; c < names.Length; c++)
+                cols[c].Add(cells[c + 1].Length == 0 ? 0.0 : double.Parse(cells[c + 1], NumberStyles.Float, CultureInfo.InvariantCulture));
+        }
+        int step = wavelengths[1] - wavelengths[0];
+        var dict = new Dictionary<string, double[]>(StringComparer.Ordinal);
+        for (int c = 0; c < names.Length; c++) dict[names[c]] = cols[c].ToArray();
+        return new CieTable(name, wavelengths[0], step, names, dict);
+    }
+}

@@ -1,0 +1,140 @@
+namespace Lumen.Spectra;
+
+/// <summary>Where a spectrum came from: the source (file name, or <c>-</c> for standard input) and its column.</summary>
+/// <param name="Source">File path or other source label.</param>
+/// <param name="Column">One-based column in the source, or 0 when not from a table.</param>
+public readonly record struct SpectrumOrigin(string Source, int Column)
+{
+    /// <summary>An origin for spectra made in code (generated, CIE tables).</summary>
+    /// <param name="label">A short label, e.g. <c>CIE illuminant A</c>.</param>
+    /// <returns>The origin.</returns>
+    public static SpectrumOrigin Generated(string label) => new(label, 0);
+
+    /// <inheritdoc/>
+    public override string ToString() => Column > 0 ? $"{Source} (column {Column})" : Source;
+}
+
+/// <summary>
+/// An immutable spectral distribution: ascending wavelengths (nm, any spacing) with one value each,
+/// a unit, a name and an origin.
+/// </summary>
+/// <remarks>
+/// Construction rejects NaN or infinite values, non-ascending or duplicate wavelengths and fewer than
+/// three samples, with a message naming the origin. Small negative values (instrument noise after dark
+/// subtraction) are kept, because clipping biases integrals (CIE 167 practice, see methods note
+/// colorimetry.md §1.5), and are counted in <see cref="NegativeSampleCount"/>.
+/// </remarks>
+public sealed class Spectrum
+{
+    private readonly double[] _wavelengthsNm;
+    private readonly double[] _values;
+
+    /// <summary>Builds a spectrum, validating its samples.</summary>
+    /// <param name="wavelengthsNm">Wavelengths in nm, strictly ascending, finite, positive.</param>
+    /// <param name="values">One finite value per wavelength, in <paramref name="unit"/>.</param>
+    /// <param name="unit">The unit of the values.</param>
+    /// <param name="name">A display name.</param>
+    /// <param name="origin">Where the data came from.</param>
+    /// <exception cref="InvalidSpectrumException">When the samples are invalid (message names the origin).</exception>
+    public Spectrum(ReadOnlySpan<double> wavelengthsNm, ReadOnlySpan<double> values, SpectralUnit unit, string name, SpectrumOrigin origin)
+    {
+        ArgumentNullException.ThrowIfNull(name);
+        Name = name;
+        Origin = origin;
+        Unit = unit;
+        if (wavelengthsNm.Length != values.Length)
+            throw new InvalidSpectrumException($"{origin}: {wavelengthsNm.Length} wavelengths but {values.Length} values.");
+        if (wavelengthsNm.Length < 3)
+            throw new InvalidSpectrumException($"{origin}: a spectrum needs at least 3 samples, found {wavelengthsNm.Length}.");
+        for (int i = 0; i < wavelengthsNm.Length; i++)
+        {
+            double w = wavelengthsNm[i];
+            if (!double.IsFinite(w) || w <= 0)
+                throw new InvalidSpectrumException($"{origin}: wavelength #{i + 1} is {w}; expected a positive finite number of nm.", i);
+            if (i > 0 && w <= wavelengthsNm[i - 1])
+                throw new InvalidSpectrumException(
+                    $"{origin}: wavelength {w} nm (#{i + 1}) does not follow {wavelengthsNm[i - 1]} nm; expected strictly ascending wavelengths without duplicates.", i);
+            double v = values[i];
+            if (!double.IsFinite(v))
+                throw new InvalidSpectrumException($"{origin}: the value at {w} nm is {v}; expected a finite number.", i);
+            if (v < 0) NegativeSampleCount++;
+        }
+        _wavelengthsNm = wavelengthsNm.ToArray();
+        _values = values.ToArray();
+    }
+
+    /// <summary>Display name (from the file header, or <c>stem#k</c>).</summary>
+    public string Name { get; }
+
+    /// <summary>Where the data came from.</summary>
+    public SpectrumOrigin Origin { get; }
+
+    /// <summary>Unit of <see cref="Values"/>.</summary>
+    public SpectralUnit Unit { get; }
+
+    /// <summary>Wavelengths in nm, strictly ascending.</summary>
+    public ReadOnlySpan<double> WavelengthsNm => _wavelengthsNm;
+
+    /// <summary>Values, one per wavelength.</summary>
+    public ReadOnlySpan<double> Values => _values;
+
+    /// <summary>Number of samples.</summary>
+    public int Count => _values.Length;
+
+    /// <summary>First wavelength, nm.</summary>
+    public double FirstNm => _wavelengthsNm[0];
+
+    /// <summary>Last wavelength, nm.</summary>
+    public double LastNm => _wavelengthsNm[^1];
+
+    /// <summary>Number of samples below zero (instrument noise; kept in all sums).</summary>
+    public int NegativeSampleCount { get; }
+
+    /// <summary>
+    /// The regular step of the grid in nm when every interval equals the first within 1e-6 nm; otherwise null.
+    /// </summary>
+    public double? RegularStepNm
+    {
+        get
+        {
+            double step = _wavelengthsNm[1] - _wavelengthsNm[0];
+            for (int i = 2; i < _wavelengthsNm.Length; i++)
+                if (Math.Abs(_wavelengthsNm[i] - _wavelengthsNm[i - 1] - step) > 1e-6) return null;
+            return step;
+        }
+    }
+
+    /// <summary>A copy with every value multiplied by <paramref name="factor"/>.</summary>
+    /// <param name="factor">A finite scale factor.</param>
+    /// <returns>The scaled spectrum (same grid, unit, name and origin).</returns>
+    public Spectrum Scale(double factor)
+    {
+        var v = new double[_values.Length];
+        for (int i = 0; i < v.Length; i++) v[i] = _values[i] * factor;
+        return new Spectrum(_wavelengthsNm, v, Unit, Name, Origin);
+    }
+
+    /// <summary>A copy with another name.</summary>
+    /// <param name="name">The new name.</param>
+    /// <returns>The renamed spectrum.</returns>
+    public Spectrum WithName(string name) => new(_wavelengthsNm, _values, Unit, name, Origin);
+
+    /// <summary>A copy with another unit (the values are unchanged).</summary>
+    /// <param name="unit">The new unit.</param>
+    /// <returns>The spectrum.</returns>
+    public Spectrum WithUnit(SpectralUnit unit) => new(_wavelengthsNm, _values, unit, Name, Origin);
+
+    /// <summary>Linear interpolation at one wavelength; zero outside the measured range.</summary>
+    /// <param name="wavelengthNm">Wavelength in nm.</param>
+    /// <returns>The interpolated value.</returns>
+    public double ValueAt(double wavelengthNm)
+    {
+        var w = _wavelengthsNm;
+        if (wavelengthNm < w[0] || wavelengthNm > w[^1]) return 0;
+        int i = Array.BinarySearch(w, wavelengthNm);
+        if (i >= 0) return _values[i];
+        i = ~i;
+        double t = (wavelengthNm - w[i - 1]) / (w[i] - w[i - 1]);
+        return _values[i - 1] + t * (_values[i] - _values[i - 1]);
+    }
+}
