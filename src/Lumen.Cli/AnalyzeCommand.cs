@@ -1,0 +1,98 @@
+using System.CommandLine;
+using Lumen.Assessment;
+using Lumen.Cie;
+using Lumen.Formats;
+using Lumen.Spectra;
+
+namespace Lumen.Cli;
+
+/// <summary><c>lumen analyze FILE...</c>: colorimetry and CCT/Duv for every spectrum in the files.</summary>
+internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWriter stderr)
+{
+    public Argument<string[]> Files { get; } = new("files")
+    {
+        Description = "Spectrum files (delimited text: wavelength column in nm, one spectrum per column); '-' reads standard input.",
+        Arity = ArgumentArity.OneOrMore,
+    };
+
+    public Option<string> ObserverOption { get; } = new("--observer")
+    {
+        Description = "Observer for XYZ and chromaticity: 2 (CIE 1931) or 10 (CIE 1964). CCT/Duv always use 2°.",
+        DefaultValueFactory = _ => "2",
+    };
+
+    public Option<string> FormatOption { get; } = new("--format")
+    {
+        Description = "Output format: text, json or csv.",
+        DefaultValueFactory = _ => "text",
+    };
+
+    public Option<string?> OutputOption { get; } = new("--output", "-o")
+    {
+        Description = "Write results to this file instead of standard output.",
+    };
+
+    public Option<string?> UnitOption { get; } = new("--unit")
+    {
+        Description = "Unit of the values when the file does not say: relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.",
+    };
+
+    public Command Build()
+    {
+        ObserverOption.AcceptOnlyFromAmong("2", "10");
+        FormatOption.AcceptOnlyFromAmong("text", "json", "csv");
+        var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT and Duv of every spectrum in the files.")
+        {
+            Files, ObserverOption, FormatOption, OutputOption, UnitOption,
+        };
+        cmd.SetAction(Execute);
+        return cmd;
+    }
+
+    private int Execute(ParseResult parse)
+    {
+        var observer = parse.GetValue(ObserverOption) == "10" ? Observer.Cie1964TenDegree : Observer.Cie1931TwoDegree;
+        var format = parse.GetValue(FormatOption) switch { "json" => OutputFormat.Json, "csv" => OutputFormat.Csv, _ => OutputFormat.Text };
+        SpectralUnit? unit = null;
+        var unitText = parse.GetValue(UnitOption);
+        if (unitText is not null)
+        {
+            if (!SpectralUnits.TryParse(unitText, out var u))
+            {
+                stderr.WriteLine($"lumen: --unit '{unitText}' is not a unit; expected relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.");
+                return ExitCodes.UsageOrInputError;
+            }
+            unit = u;
+        }
+        var options = new AssessmentOptions(observer);
+        var items = new List<AnalysisItem>();
+        foreach (var file in parse.GetValue(Files) ?? [])
+        {
+            foreach (var record in DelimitedSpectrumReader.ReadFile(file, unit, stdin))
+            {
+                if (record.Error is not null) stderr.WriteLine($"lumen: {record.Error}");
+                items.Add(AnalysisItem.From(record, options));
+            }
+        }
+
+        var outPath = parse.GetValue(OutputOption);
+        if (outPath is null)
+        {
+            ResultWriters.Write(items, format, stdout);
+        }
+        else
+        {
+            try
+            {
+                using var w = new StreamWriter(outPath);
+                ResultWriters.Write(items, format, w);
+            }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+            {
+                stderr.WriteLine($"lumen: cannot write '{outPath}': {ex.Message}");
+                return ExitCodes.UsageOrInputError;
+            }
+        }
+        return items.Any(i => i.Result is null) ? ExitCodes.UsageOrInputError : ExitCodes.Success;
+    }
+}

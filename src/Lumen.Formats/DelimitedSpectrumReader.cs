@@ -1,0 +1,223 @@
+using System.Globalization;
+using Lumen.Spectra;
+
+namespace Lumen.Formats;
+
+/// <summary>
+/// Reads delimited text as instruments export it: a wavelength column in nm, then one spectrum per column.
+/// </summary>
+/// <remarks>
+/// <list type="bullet">
+/// <item>Delimiter: tab, semicolon or comma (detected from the first row, in that order of preference);
+/// runs of spaces when none of them occurs.</item>
+/// <item>Optional header row (its first cell is not a number); header cells name the spectra. Without a header
+/// spectra are named <c>stem#k</c>, k the one-based data column.</item>
+/// <item>Lines starting with <c>#</c> are comments; <c># unit: W/m2/nm</c> declares the unit of the values.</item>
+/// <item>UTF-8 with or without byte-order mark; CRLF or LF.</item>
+/// <item>Decimal comma: with a tab or semicolon delimiter, a comma inside a number is its decimal separator
+/// (detected per cell, never taken from the machine's culture).</item>
+/// </list>
+/// Every problem is a <see cref="ReadDiagnostic"/> naming file, line and column. A bad cell spoils only its own
+/// column; a bad wavelength, a ragged row or a descending wavelength spoils every column of the file, and each
+/// column then appears as an error record.
+/// </remarks>
+public static class DelimitedSpectrumReader
+{
+    /// <summary>Reads a file (or standard input when <paramref name="path"/> is <c>-</c>).</summary>
+    /// <param name="path">File path.</param>
+    /// <param name="unit">Unit to assume when the file does not declare one; null for relative.</param>
+    /// <param name="stdin">Standard input, used for <c>-</c>.</param>
+    /// <returns>One record per data column, in file order.</returns>
+    public static IReadOnlyList<SpectrumRecord> ReadFile(string path, SpectralUnit? unit = null, TextReader? stdin = null)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        if (path == "-")
+            return Read(stdin ?? Console.In, "-", "stdin", unit);
+        if (!File.Exists(path))
+            return [FileError(path, 0, 0, "file not found")];
+        using var reader = new StreamReader(path, detectEncodingFromByteOrderMarks: true);
+        return Read(reader, path, Path.GetFileNameWithoutExtension(path), unit);
+    }
+
+    /// <summary>Reads delimited spectra from a reader.</summary>
+    /// <param name="reader">The text.</param>
+    /// <param name="source">Source label for messages and origins (usually the path).</param>
+    /// <param name="stem">Stem for names of spectra without a header.</param>
+    /// <param name="unit">Unit to assume when the text does not declare one; null for relative.</param>
+    /// <returns>One record per data column, in order; a single error record when the file has no usable data.</returns>
+    public static IReadOnlyList<SpectrumRecord> Read(TextReader reader, string source, string stem, SpectralUnit? unit = null)
+    {
+        ArgumentNullException.ThrowIfNull(reader);
+        var declaredUnit = unit;
+        char? delimiter = null;
+        string[]? header = null;
+        int headerLine = 0, columnCount = 0;
+        List<double>? wavelengths = null;
+        List<double>[]? values = null;
+        ReadDiagnostic?[]? columnErrors = null;
+        ReadDiagnostic? fileError = null;
+        int lineNo = 0, lastLine = 0;
+        string? line;
+        while ((line = reader.ReadLine()) is not null)
+        {
+            lineNo++;
+            if (lineNo == 1 && line.Length > 0 && line[0] == '\uFEFF') line = line[1..];
+            var trimmed = line.Trim();
+            if (trimmed.Length == 0) continue;
+            if (trimmed[0] == '#')
+            {
+                var directive = trimmed.TrimStart('#').Trim();
+                if (directive.StartsWith("unit", StringComparison.OrdinalIgnoreCase) && directive.Contains(':', StringComparison.Ordinal))
+                {
+                    var text = directive[(directive.IndexOf(':', StringComparison.Ordinal) + 1)..].Trim();
+                    if (SpectralUnits.TryParse(text, out var u)) declaredUnit ??= u;
+                    else fileError ??= new ReadDiagnostic(source, lineNo, 1, $"unknown unit '{text}'; expected relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm");
+                }
+                continue;
+            }
+            if (fileError is not null) { lastLine = lineNo; continue; }
+            delimiter ??= DetectDelimiter(trimmed);
+            var cells = Split(trimmed, delimiter.Value);
+            if (wavelengths is null)
+            {
+                // First non-comment row: header or data?
+                if (!TryParseNumber(cells[0], delimiter.Value, out _))
+                {
+                    header = cells;
+                    headerLine = lineNo;
+                    columnCount = cells.Length;
+                    if (columnCount < 2)
+                    {
+                        fileError = new ReadDiagnostic(source, lineNo, 1, "header has one cell; expected a wavelength column and at least one spectrum column (is the delimiter a comma, semicolon or tab?)");
+                        continue;
+                    }
+                    Init(columnCount);
+                    continue;
+                }
+                columnCount = cells.Length;
+                if (columnCount < 2)
+                {
+                    fileError = new ReadDiagnostic(source, lineNo, 2, "row has one cell; expected a wavelength and at least one value");
+                    continue;
+                }
+                Init(columnCount);
+            }
+            lastLine = lineNo;
+            if (cells.Length > columnCount)
+            {
+                fileError = new ReadDiagnostic(source, lineNo, columnCount + 1, $"ragged row: expected {columnCount} cells, found {cells.Length}");
+                continue;
+            }
+            if (!TryParseNumber(cells[0], delimiter.Value, out double w) || w <= 0)
+            {
+                fileError = new ReadDiagnostic(source, lineNo, 1, $"'{Shorten(cells[0])}' is not a wavelength; expected a positive number of nm");
+                continue;
+            }
+            if (wavelengths!.Count > 0 && w <= wavelengths[^1])
+            {
+                fileError = new ReadDiagnostic(source, lineNo, 1,
+                    w == wavelengths[^1] ? $"duplicate wavelength {w} nm; expected ascending wavelengths"
+                                         : $"wavelength {w} nm follows {wavelengths[^1]} nm; expected ascending wavelengths");
+                continue;
+            }
+            wavelengths.Add(w);
+            for (int c = 1; c < columnCount; c++)
+            {
+                if (columnErrors![c] is not null) { values![c].Add(0); continue; }
+                if (c >= cells.Length)
+                {
+                    columnErrors[c] = new ReadDiagnostic(source, lineNo, c + 1, $"ragged row: missing value; expected {columnCount} cells, found {cells.Length}");
+                    values![c].Add(0);
+                    continue;
+                }
+                if (!TryParseNumber(cells[c], delimiter.Value, out double v))
+                {
+                    columnErrors[c] = new ReadDiagnostic(source, lineNo, c + 1,
+                        cells[c].Length == 0 ? "empty cell; expected a number" : $"'{Shorten(cells[c])}' is not a number; expected a finite decimal number");
+                    v = 0;
+                }
+                values![c].Add(v);
+            }
+        }
+
+        if (wavelengths is null && header is null && fileError is null)
+            return [FileError(source, Math.Max(1, lineNo), 1, lineNo == 0 ? "empty file; expected a header row or rows of wavelength and values" : "no data rows; expected rows of wavelength and values")];
+        if (fileError is null && (wavelengths is null || wavelengths.Count == 0))
+            fileError = new ReadDiagnostic(source, headerLine + 1, 1, "header only; expected rows of wavelength and values after it");
+        if (columnCount < 2)
+            return [FileError(source, fileError!.Line, fileError.Column, fileError.Message)];
+
+        var records = new List<SpectrumRecord>(columnCount - 1);
+        var finalUnit = declaredUnit ?? SpectralUnit.Relative;
+        for (int c = 1; c < columnCount; c++)
+        {
+            string name = header is not null && c < header.Length && header[c].Length > 0 ? header[c] : $"{stem}#{c}";
+            var error = fileError ?? columnErrors![c];
+            if (error is not null)
+            {
+                records.Add(new SpectrumRecord(source, c + 1, name, null, error));
+                continue;
+            }
+            try
+            {
+                var s = new Spectrum(wavelengths!.ToArray(), values![c].ToArray(), finalUnit, name, new SpectrumOrigin(source, c + 1));
+                records.Add(new SpectrumRecord(source, c + 1, name, s, null));
+            }
+            catch (InvalidSpectrumException ex)
+            {
+                records.Add(new SpectrumRecord(source, c + 1, name, null, new ReadDiagnostic(source, lastLine, c + 1, ex.Message)));
+            }
+        }
+        return records;
+
+        void Init(int n)
+        {
+            wavelengths = new List<double>(512);
+            values = new List<double>[n];
+            for (int i = 0; i < n; i++) values[i] = new List<double>(512);
+            columnErrors = new ReadDiagnostic?[n];
+        }
+    }
+
+    private static SpectrumRecord FileError(string source, int line, int column, string message) =>
+        new(source, 0, Path.GetFileName(source), null, new ReadDiagnostic(source, line, column, message));
+
+    private static string Shorten(string s) => s.Length <= 24 ? s : s[..21] + "...";
+
+    /// <summary>Detects the delimiter of a row: tab, then semicolon, then comma, else runs of spaces.</summary>
+    /// <param name="row">A header or data row.</param>
+    /// <returns>The delimiter (<c>' '</c> for whitespace).</returns>
+    public static char DetectDelimiter(string row)
+    {
+        ArgumentNullException.ThrowIfNull(row);
+        if (row.Contains('\t', StringComparison.Ordinal)) return '\t';
+        if (row.Contains(';', StringComparison.Ordinal)) return ';';
+        if (row.Contains(',', StringComparison.Ordinal)) return ',';
+        return ' ';
+    }
+
+    private static string[] Split(string row, char delimiter)
+    {
+        var parts = delimiter == ' '
+            ? row.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries)
+            : row.Split(delimiter);
+        for (int i = 0; i < parts.Length; i++) parts[i] = parts[i].Trim().Trim('"').Trim();
+        // A trailing delimiter (common in exports) leaves one empty last cell: drop it.
+        if (parts.Length > 2 && parts[^1].Length == 0) Array.Resize(ref parts, parts.Length - 1);
+        return parts;
+    }
+
+    /// <summary>Parses a number with the invariant culture; with a non-comma delimiter a comma is a decimal comma.</summary>
+    /// <param name="cell">Cell text.</param>
+    /// <param name="delimiter">The file's delimiter.</param>
+    /// <param name="value">The value, when finite.</param>
+    /// <returns>True for a finite number (NaN and infinities are rejected).</returns>
+    public static bool TryParseNumber(string cell, char delimiter, out double value)
+    {
+        ArgumentNullException.ThrowIfNull(cell);
+        var text = cell;
+        if (delimiter != ',' && text.Contains(',', StringComparison.Ordinal) && !text.Contains('.', StringComparison.Ordinal))
+            text = text.Replace(',', '.');
+        return double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
+    }
+}

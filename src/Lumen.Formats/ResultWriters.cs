@@ -1,0 +1,215 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using Lumen.Cie;
+
+namespace Lumen.Formats;
+
+/// <summary>Output formats of <c>lumen analyze</c>.</summary>
+public enum OutputFormat
+{
+    /// <summary>A compact table for people.</summary>
+    Text,
+
+    /// <summary>A JSON array, one object per record (field names documented in the README).</summary>
+    Json,
+
+    /// <summary>CSV, one row per record, flat columns documented in the README.</summary>
+    Csv,
+}
+
+/// <summary>Writes analysis results as text, JSON or CSV.</summary>
+public static class ResultWriters
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Writes items in a format.</summary>
+    /// <param name="items">Items in input order.</param>
+    /// <param name="format">The format.</param>
+    /// <param name="output">Destination.</param>
+    public static void Write(IReadOnlyList<AnalysisItem> items, OutputFormat format, TextWriter output)
+    {
+        switch (format)
+        {
+            case OutputFormat.Json: WriteJson(items, output); break;
+            case OutputFormat.Csv: WriteCsv(items, output); break;
+            default: WriteText(items, output); break;
+        }
+    }
+
+    /// <summary>Observer label used in outputs: "2" or "10".</summary>
+    /// <param name="o">Observer.</param>
+    /// <returns>The label.</returns>
+    public static string ObserverLabel(Observer o) => o == Observer.Cie1931TwoDegree ? "2" : "10";
+
+    /// <summary>Writes the JSON array.</summary>
+    /// <param name="items">Items.</param>
+    /// <param name="output">Destination.</param>
+    public static void WriteJson(IReadOnlyList<AnalysisItem> items, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        ArgumentNullException.ThrowIfNull(output);
+        using var ms = new MemoryStream();
+        using (var w = new Utf8JsonWriter(ms, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            w.WriteStartArray();
+            foreach (var item in items) WriteJsonItem(w, item);
+            w.WriteEndArray();
+        }
+        output.Write(Encoding.UTF8.GetString(ms.ToArray()));
+        output.WriteLine();
+    }
+
+    private static void Num(Utf8JsonWriter w, string name, double value)
+    {
+        if (double.IsFinite(value)) w.WriteNumber(name, value);
+        else w.WriteNull(name);
+    }
+
+    private static void WriteJsonItem(Utf8JsonWriter w, AnalysisItem item)
+    {
+        var rec = item.Record;
+        w.WriteStartObject();
+        w.WriteString("name", rec.Name);
+        w.WriteString("source", rec.Source);
+        w.WriteNumber("column", rec.Column);
+        if (item.Result is not { } a)
+        {
+            var e = rec.Error!;
+            w.WriteStartObject("error");
+            w.WriteNumber("line", e.Line);
+            w.WriteNumber("column", e.Column);
+            w.WriteString("message", e.Message);
+            w.WriteEndObject();
+            w.WriteEndObject();
+            return;
+        }
+        w.WriteString("observer", ObserverLabel(a.Observer));
+        w.WriteString("unit", Lumen.Spectra.SpectralUnits.Symbol(a.Unit));
+        w.WriteStartObject("tristimulus");
+        Num(w, "X", a.Tristimulus.X); Num(w, "Y", a.Tristimulus.Y); Num(w, "Z", a.Tristimulus.Z);
+        w.WriteEndObject();
+        w.WriteStartObject("chromaticity");
+        Num(w, "x", a.Chromaticity.X); Num(w, "y", a.Chromaticity.Y);
+        Num(w, "u", a.Chromaticity.U); Num(w, "v", a.Chromaticity.V);
+        Num(w, "uPrime", a.Chromaticity.UPrime); Num(w, "vPrime", a.Chromaticity.VPrime);
+        w.WriteEndObject();
+        w.WriteStartObject("cct");
+        Num(w, "kelvin", a.Cct.CctKelvin);
+        Num(w, "duv", a.Cct.Duv);
+        w.WriteString("method", Lumen.Temperature.CctResult.Describe(a.Cct.Method));
+        w.WriteString("observer", "2");
+        w.WriteEndObject();
+        w.WriteStartArray("warnings");
+        foreach (var warning in a.Warnings) w.WriteStringValue(warning);
+        w.WriteEndArray();
+        var p = a.Provenance;
+        w.WriteStartObject("provenance");
+        w.WriteStartObject("methods");
+        foreach (var kv in p.Methods) w.WriteString(kv.Key, kv.Value);
+        w.WriteEndObject();
+        w.WriteStartArray("standards");
+        foreach (var s in p.Standards) w.WriteStringValue(s);
+        w.WriteEndArray();
+        w.WriteNumber("c2MetreKelvin", p.C2MetreKelvin);
+        w.WriteStartObject("measuredRangeNm");
+        w.WriteNumber("first", p.MeasuredFirstNm); w.WriteNumber("last", p.MeasuredLastNm);
+        w.WriteEndObject();
+        w.WriteStartObject("integration");
+        w.WriteNumber("startNm", p.IntegrationStartNm); w.WriteNumber("endNm", p.IntegrationEndNm); w.WriteNumber("stepNm", p.IntegrationStepNm);
+        w.WriteString("sampling", p.Sampling);
+        w.WriteEndObject();
+        w.WriteEndObject();
+        w.WriteEndObject();
+    }
+
+    /// <summary>CSV column names, in order (documented in the README).</summary>
+    public static IReadOnlyList<string> CsvColumns { get; } =
+    [
+        "name", "source", "column", "status", "observer", "X", "Y", "Z", "x", "y", "u", "v", "u_prime", "v_prime",
+        "cct_k", "duv", "cct_method", "warnings", "error_line", "error_column", "error",
+    ];
+
+    /// <summary>Writes CSV (RFC 4180 quoting, invariant culture, '.' decimal separator).</summary>
+    /// <param name="items">Items.</param>
+    /// <param name="output">Destination.</param>
+    public static void WriteCsv(IReadOnlyList<AnalysisItem> items, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        ArgumentNullException.ThrowIfNull(output);
+        output.WriteLine(string.Join(',', CsvColumns));
+        foreach (var item in items)
+        {
+            var r = item.Record;
+            var cells = new List<string> { Csv(r.Name), Csv(r.Source), r.Column.ToString(Inv) };
+            if (item.Result is { } a)
+            {
+                cells.Add("ok");
+                cells.Add(ObserverLabel(a.Observer));
+                cells.AddRange(new[] { a.Tristimulus.X, a.Tristimulus.Y, a.Tristimulus.Z, a.Chromaticity.X, a.Chromaticity.Y,
+                    a.Chromaticity.U, a.Chromaticity.V, a.Chromaticity.UPrime, a.Chromaticity.VPrime, a.Cct.CctKelvin, a.Cct.Duv }.Select(F));
+                cells.Add(Csv(Lumen.Temperature.CctResult.Describe(a.Cct.Method)));
+                cells.Add(Csv(string.Join(" | ", a.Warnings)));
+                cells.AddRange(["", "", ""]);
+            }
+            else
+            {
+                var e = r.Error!;
+                cells.Add("error");
+                cells.AddRange(Enumerable.Repeat("", 14));
+                cells.Add(e.Line.ToString(Inv));
+                cells.Add(e.Column.ToString(Inv));
+                cells.Add(Csv(e.Message));
+            }
+            output.WriteLine(string.Join(',', cells));
+        }
+    }
+
+    private static string F(double v) => double.IsFinite(v) ? v.ToString("R", Inv) : "";
+
+    /// <summary>Quotes a CSV field when needed (RFC 4180).</summary>
+    /// <param name="s">Field text.</param>
+    /// <returns>The field, quoted when it holds a comma, quote or line break.</returns>
+    public static string Csv(string s)
+    {
+        ArgumentNullException.ThrowIfNull(s);
+        return s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"", StringComparison.Ordinal) + "\"" : s;
+    }
+
+    /// <summary>Writes the compact table a lighting designer reads at a glance, then warnings and errors.</summary>
+    /// <param name="items">Items.</param>
+    /// <param name="output">Destination.</param>
+    public static void WriteText(IReadOnlyList<AnalysisItem> items, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        ArgumentNullException.ThrowIfNull(output);
+        int nameWidth = Math.Clamp(items.Count == 0 ? 4 : items.Max(i => i.Record.Name.Length), 4, 32);
+        var obs = items.FirstOrDefault(i => i.Result is not null)?.Result?.Observer ?? Observer.Cie1931TwoDegree;
+        output.WriteLine($"{"Name".PadRight(nameWidth)}  {"CCT (K)",8}  {"Duv",8}  {"x",7}  {"y",7}  {"u'",7}  {"v'",7}   (chromaticity: CIE {(obs == Observer.Cie1931TwoDegree ? "1931 2°" : "1964 10°")}; CCT/Duv: 2°)");
+        output.WriteLine(new string('-', nameWidth + 62));
+        var notes = new List<string>();
+        foreach (var item in items)
+        {
+            string name = item.Record.Name.Length > nameWidth ? item.Record.Name[..(nameWidth - 1)] + "…" : item.Record.Name.PadRight(nameWidth);
+            if (item.Result is { } a)
+            {
+                string cct = double.IsFinite(a.Cct.CctKelvin) ? a.Cct.CctKelvin.ToString("0", Inv) : "—";
+                string duv = double.IsFinite(a.Cct.Duv) ? a.Cct.Duv.ToString("+0.0000;-0.0000;0.0000", Inv) : "—";
+                var c = a.Chromaticity;
+                output.WriteLine($"{name}  {cct,8}  {duv,8}  {G(c.X),7}  {G(c.Y),7}  {G(c.UPrime),7}  {G(c.VPrime),7}{(a.Warnings.Count > 0 ? "  !" : "")}");
+                foreach (var wmsg in a.Warnings) notes.Add($"! {item.Record.Name}: {wmsg}");
+            }
+            else
+            {
+                output.WriteLine($"{name}  ERROR {item.Record.Error}");
+            }
+        }
+        if (notes.Count > 0)
+        {
+            output.WriteLine();
+            foreach (var n in notes) output.WriteLine(n);
+        }
+    }
+
+    private static string G(double v) => double.IsFinite(v) ? v.ToString("0.0000", Inv) : "—";
+}
