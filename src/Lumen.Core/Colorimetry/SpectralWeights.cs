@@ -89,12 +89,28 @@ public static class Colorimeter
     public static Tristimulus RawSums(RegularSamples samples, Observer observer)
     {
         ArgumentNullException.ThrowIfNull(samples);
-        var (x, y, z) = CieTables.CmfColumns(observer);
-        var w = SpectralWeights.For(CieTables.ColourMatchingFunctions(observer), [x, y, z], samples);
+        var w = CmfWeights(observer, samples.StartNm, samples.StepNm, samples.Values.Length);
         return new Tristimulus(
             SpectralSum.Dot(samples.Values, w.Weights[0]),
             SpectralSum.Dot(samples.Values, w.Weights[1]),
             SpectralSum.Dot(samples.Values, w.Weights[2]));
+    }
+
+    private static readonly ConcurrentDictionary<(Observer, int, int, int), SpectralWeights> CmfCache = new();
+
+    /// <summary>Colour-matching-function weights (x̄Δλ, ȳΔλ, z̄Δλ) of an observer on a grid, cached without allocation per call.</summary>
+    /// <param name="observer">The observer.</param>
+    /// <param name="startNm">First wavelength of the grid.</param>
+    /// <param name="stepNm">Step.</param>
+    /// <param name="count">Number of points.</param>
+    /// <returns>Three weight arrays.</returns>
+    public static SpectralWeights CmfWeights(Observer observer, int startNm, int stepNm, int count)
+    {
+        if (CmfCache.TryGetValue((observer, startNm, stepNm, count), out var w)) return w;
+        var (x, y, z) = CieTables.CmfColumns(observer);
+        w = SpectralWeights.For(CieTables.ColourMatchingFunctions(observer), [x, y, z], startNm, stepNm, count);
+        CmfCache[(observer, startNm, stepNm, count)] = w;
+        return w;
     }
 
     /// <summary>Relative tristimulus values, normalised so that Y = 100 (CIE 15, k = 100/ΣSȳΔλ).</summary>

@@ -1,0 +1,57 @@
+using System.Globalization;
+using BenchmarkDotNet.Configs;
+using BenchmarkDotNet.Jobs;
+using BenchmarkDotNet.Reports;
+using BenchmarkDotNet.Running;
+
+namespace Lumen.Bench;
+
+/// <summary>Runs the benchmarks and writes bench/results/ (BenchmarkDotNet reports plus a throughput summary).</summary>
+public static class Program
+{
+    public static void Main(string[] args)
+    {
+        var results = Path.GetFullPath(Path.Combine(FindRoot(), "bench", "results"));
+        var config = DefaultConfig.Instance
+            .AddJob(Job.ShortRun)
+            .WithArtifactsPath(Path.Combine(results, "artifacts"))
+            .WithOptions(ConfigOptions.DisableOptimizationsValidator);
+        var summaries = BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args, config);
+        WriteThroughput(summaries, Path.Combine(results, "throughput.md"));
+    }
+
+    private static void WriteThroughput(IEnumerable<Summary> summaries, string path)
+    {
+        var lines = new List<string>
+        {
+            "# Lumen throughput (written by bench/Lumen.Bench)",
+            "",
+            $"Run: {DateTime.UtcNow:yyyy-MM-dd HH:mm} UTC, {Environment.ProcessorCount} logical cores, single-threaded benchmarks.",
+            "Machines are noisy: compare ratios within one run, not absolute figures across runs.",
+            "",
+            "| benchmark | mean per operation | spectra per operation | spectra per second (one core) |",
+            "|---|---|---|---|",
+        };
+        foreach (var s in summaries)
+        {
+            foreach (var r in s.Reports)
+            {
+                if (r.ResultStatistics is null) continue;
+                double ns = r.ResultStatistics.Mean;
+                int per = r.BenchmarkCase.Descriptor.Type == typeof(ColorimetryBenchmarks) ? ColorimetryBenchmarks.BatchSize : 1;
+                double rate = per / (ns * 1e-9);
+                lines.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"| {r.BenchmarkCase.Descriptor.WorkloadMethodDisplayInfo} | {ns / 1000:0.0} µs | {per} | {rate:N0} |"));
+            }
+        }
+        File.WriteAllLines(path, lines);
+        Console.WriteLine($"wrote {path}");
+    }
+
+    private static string FindRoot()
+    {
+        var d = new DirectoryInfo(AppContext.BaseDirectory);
+        while (d is not null && !File.Exists(Path.Combine(d.FullName, "Lumen.sln"))) d = d.Parent;
+        return d?.FullName ?? Directory.GetCurrentDirectory();
+    }
+}
