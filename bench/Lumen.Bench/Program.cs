@@ -38,7 +38,9 @@ public static class Program
             {
                 if (r.ResultStatistics is null) continue;
                 double ns = r.ResultStatistics.Mean;
-                int per = r.BenchmarkCase.Descriptor.Type == typeof(ColorimetryBenchmarks) ? ColorimetryBenchmarks.BatchSize : 1;
+                var type = r.BenchmarkCase.Descriptor.Type;
+                int per = type == typeof(ColorimetryBenchmarks) ? ColorimetryBenchmarks.BatchSize
+                    : type == typeof(RenditionBenchmarks) ? RenditionBenchmarks.BatchSize : 1;
                 double rate = per / (ns * 1e-9);
                 lines.Add(string.Create(CultureInfo.InvariantCulture,
                     $"| {r.BenchmarkCase.Descriptor.WorkloadMethodDisplayInfo} | {ns / 1000:0.0} µs | {per} | {rate:N0} |"));

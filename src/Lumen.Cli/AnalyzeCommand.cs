@@ -37,13 +37,38 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         Description = "Unit of the values when the file does not say: relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.",
     };
 
+    public Option<string> MetricsOption { get; } = new("--metrics")
+    {
+        Description = "Result groups, comma-separated: colorimetry, cri, fidelity (tm30 is an alias), all. Default: all.",
+        DefaultValueFactory = _ => "all",
+    };
+
+    /// <summary>Parses a --metrics value.</summary>
+    internal static bool TryParseMetrics(string text, out MetricGroups groups, out string? bad)
+    {
+        groups = MetricGroups.Colorimetry;
+        bad = null;
+        foreach (var part in text.Split(',', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+        {
+            switch (part.ToLowerInvariant())
+            {
+                case "all": groups |= MetricGroups.All; break;
+                case "colorimetry": case "colourimetry": break;
+                case "cri": groups |= MetricGroups.Cri; break;
+                case "fidelity": case "tm30": case "cie224": groups |= MetricGroups.Fidelity; break;
+                default: bad = part; return false;
+            }
+        }
+        return true;
+    }
+
     public Command Build()
     {
         ObserverOption.AcceptOnlyFromAmong("2", "10");
         FormatOption.AcceptOnlyFromAmong("text", "json", "csv");
-        var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT and Duv of every spectrum in the files.")
+        var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT, Duv and colour rendition (Ra, R1–R14, Rf, Rg) of every spectrum in the files.")
         {
-            Files, ObserverOption, FormatOption, OutputOption, UnitOption,
+            Files, ObserverOption, FormatOption, OutputOption, UnitOption, MetricsOption,
         };
         cmd.SetAction(Execute);
         return cmd;
@@ -64,7 +89,12 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
             }
             unit = u;
         }
-        var options = new AssessmentOptions(observer);
+        if (!TryParseMetrics(parse.GetValue(MetricsOption) ?? "all", out var metrics, out var badMetric))
+        {
+            stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity or all.");
+            return ExitCodes.UsageOrInputError;
+        }
+        var options = new AssessmentOptions(observer, Metrics: metrics);
         var items = new List<AnalysisItem>();
         foreach (var file in parse.GetValue(Files) ?? [])
         {

@@ -100,6 +100,44 @@ public static class ResultWriters
         w.WriteString("method", Lumen.Temperature.CctResult.Describe(a.Cct.Method));
         w.WriteString("observer", "2");
         w.WriteEndObject();
+        if (a.Cri is { } cri)
+        {
+            w.WriteStartObject("cri");
+            Num(w, "ra", cri.Ra);
+            w.WriteStartArray("r");
+            foreach (var r in cri.R) w.WriteNumberValue(r);
+            w.WriteEndArray();
+            Num(w, "r9", cri.R9);
+            WriteReference(w, cri.Reference);
+            Num(w, "dc", cri.Dc);
+            w.WriteBoolean("dcValid", cri.DcValid);
+            w.WriteString("method", "CIE 13.3-1995");
+            w.WriteEndObject();
+        }
+        if (a.Fidelity is { } f)
+        {
+            w.WriteStartObject("fidelity");
+            Num(w, "rf", f.Rf);
+            Num(w, "rg", f.Rg);
+            w.WriteStartArray("rfCes");
+            foreach (var r in f.RfCes) w.WriteNumberValue(r);
+            w.WriteEndArray();
+            w.WriteStartArray("hueBins");
+            foreach (var b in f.HueBins)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("bin", b.Index);
+                w.WriteNumber("samples", b.SampleCount);
+                Num(w, "rf", b.Rf);
+                Num(w, "rcs", b.Rcs * 100);
+                Num(w, "rhs", b.Rhs);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            WriteReference(w, f.Reference);
+            w.WriteString("method", "CIE 224:2017 Rf; ANSI/IES TM-30-20 Rg and hue bins (rcs in %)");
+            w.WriteEndObject();
+        }
         w.WriteStartArray("warnings");
         foreach (var warning in a.Warnings) w.WriteStringValue(warning);
         w.WriteEndArray();
@@ -119,7 +157,23 @@ public static class ResultWriters
         w.WriteNumber("startNm", p.IntegrationStartNm); w.WriteNumber("endNm", p.IntegrationEndNm); w.WriteNumber("stepNm", p.IntegrationStepNm);
         w.WriteString("sampling", p.Sampling);
         w.WriteEndObject();
+        w.WriteNumber("negativeSamples", p.NegativeSamples);
         w.WriteEndObject();
+        w.WriteEndObject();
+    }
+
+    private static void WriteReference(Utf8JsonWriter w, Lumen.Rendition.ReferenceIlluminant r)
+    {
+        w.WriteStartObject("reference");
+        w.WriteString("type", r.Kind switch
+        {
+            Lumen.Rendition.ReferenceKind.Planckian => "planckian",
+            Lumen.Rendition.ReferenceKind.CieDaylight => "daylight",
+            _ => "blend",
+        });
+        Num(w, "cctKelvin", r.CctKelvin);
+        Num(w, "daylightFraction", r.DaylightFraction);
+        w.WriteString("description", r.Description);
         w.WriteEndObject();
     }
 
@@ -127,7 +181,11 @@ public static class ResultWriters
     public static IReadOnlyList<string> CsvColumns { get; } =
     [
         "name", "source", "column", "status", "observer", "X", "Y", "Z", "x", "y", "u", "v", "u_prime", "v_prime",
-        "cct_k", "duv", "cct_method", "warnings", "error_line", "error_column", "error",
+        "cct_k", "duv", "cct_method",
+        "ra", "r1", "r2", "r3", "r4", "r5", "r6", "r7", "r8", "r9", "r10", "r11", "r12", "r13", "r14", "cri_reference", "dc",
+        "rf", "rg", .. Enumerable.Range(1, 16).Select(j => $"rf_h{j}"), .. Enumerable.Range(1, 16).Select(j => $"rcs_h{j}"),
+        .. Enumerable.Range(1, 16).Select(j => $"rhs_h{j}"), "fidelity_reference",
+        "warnings", "error_line", "error_column", "error",
     ];
 
     /// <summary>Writes CSV (RFC 4180 quoting, invariant culture, '.' decimal separator).</summary>
@@ -149,6 +207,24 @@ public static class ResultWriters
                 cells.AddRange(new[] { a.Tristimulus.X, a.Tristimulus.Y, a.Tristimulus.Z, a.Chromaticity.X, a.Chromaticity.Y,
                     a.Chromaticity.U, a.Chromaticity.V, a.Chromaticity.UPrime, a.Chromaticity.VPrime, a.Cct.CctKelvin, a.Cct.Duv }.Select(F));
                 cells.Add(Csv(Lumen.Temperature.CctResult.Describe(a.Cct.Method)));
+                if (a.Cri is { } cri)
+                {
+                    cells.Add(F(cri.Ra));
+                    cells.AddRange(cri.R.Select(F));
+                    cells.Add(Csv(cri.Reference.Description));
+                    cells.Add(F(cri.Dc));
+                }
+                else cells.AddRange(Enumerable.Repeat("", 17));
+                if (a.Fidelity is { } fi)
+                {
+                    cells.Add(F(fi.Rf));
+                    cells.Add(F(fi.Rg));
+                    cells.AddRange(fi.HueBins.Select(b => F(b.Rf)));
+                    cells.AddRange(fi.HueBins.Select(b => F(b.Rcs * 100)));
+                    cells.AddRange(fi.HueBins.Select(b => F(b.Rhs)));
+                    cells.Add(Csv(fi.Reference.Description));
+                }
+                else cells.AddRange(Enumerable.Repeat("", 51));
                 cells.Add(Csv(string.Join(" | ", a.Warnings)));
                 cells.AddRange(["", "", ""]);
             }
@@ -156,7 +232,7 @@ public static class ResultWriters
             {
                 var e = r.Error!;
                 cells.Add("error");
-                cells.AddRange(Enumerable.Repeat("", 14));
+                cells.AddRange(Enumerable.Repeat("", CsvColumns.Count - 7));
                 cells.Add(e.Line.ToString(Inv));
                 cells.Add(e.Column.ToString(Inv));
                 cells.Add(Csv(e.Message));
@@ -185,8 +261,8 @@ public static class ResultWriters
         ArgumentNullException.ThrowIfNull(output);
         int nameWidth = Math.Clamp(items.Count == 0 ? 4 : items.Max(i => i.Record.Name.Length), 4, 32);
         var obs = items.FirstOrDefault(i => i.Result is not null)?.Result?.Observer ?? Observer.Cie1931TwoDegree;
-        output.WriteLine($"{"Name".PadRight(nameWidth)}  {"CCT (K)",8}  {"Duv",8}  {"x",7}  {"y",7}  {"u'",7}  {"v'",7}   (chromaticity: CIE {(obs == Observer.Cie1931TwoDegree ? "1931 2°" : "1964 10°")}; CCT/Duv: 2°)");
-        output.WriteLine(new string('-', nameWidth + 62));
+        output.WriteLine($"{"Name".PadRight(nameWidth)}  {"CCT (K)",8}  {"Duv",8}  {"x",7}  {"y",7}  {"u'",7}  {"v'",7}  {"Ra",5}  {"R9",6}  {"Rf",5}  {"Rg",5}");
+        output.WriteLine(new string('-', nameWidth + 90));
         var notes = new List<string>();
         foreach (var item in items)
         {
@@ -196,7 +272,9 @@ public static class ResultWriters
                 string cct = double.IsFinite(a.Cct.CctKelvin) ? a.Cct.CctKelvin.ToString("0", Inv) : "—";
                 string duv = double.IsFinite(a.Cct.Duv) ? a.Cct.Duv.ToString("+0.0000;-0.0000;0.0000", Inv) : "—";
                 var c = a.Chromaticity;
-                output.WriteLine($"{name}  {cct,8}  {duv,8}  {G(c.X),7}  {G(c.Y),7}  {G(c.UPrime),7}  {G(c.VPrime),7}{(a.Warnings.Count > 0 ? "  !" : "")}");
+                string ra = a.Cri is { } cr ? cr.Ra.ToString("0.0", Inv) : "—", r9 = a.Cri is { } cr9 ? cr9.R9.ToString("0.0", Inv) : "—";
+                string rf = a.Fidelity is { } fi ? fi.Rf.ToString("0.0", Inv) : "—", rg = a.Fidelity is { } fg ? fg.Rg.ToString("0.0", Inv) : "—";
+                output.WriteLine($"{name}  {cct,8}  {duv,8}  {G(c.X),7}  {G(c.Y),7}  {G(c.UPrime),7}  {G(c.VPrime),7}  {ra,5}  {r9,6}  {rf,5}  {rg,5}{(a.Warnings.Count > 0 ? "  !" : "")}");
                 foreach (var wmsg in a.Warnings) notes.Add($"! {item.Record.Name}: {wmsg}");
             }
             else
@@ -204,6 +282,9 @@ public static class ResultWriters
                 output.WriteLine($"{name}  ERROR {item.Record.Error}");
             }
         }
+        output.WriteLine();
+        output.WriteLine($"Chromaticity: CIE {(obs == Observer.Cie1931TwoDegree ? "1931 2°" : "1964 10°")} observer; CCT/Duv: CIE 1931 2°, Duv > 0 above the Planckian locus.");
+        output.WriteLine("Ra, R9: CIE 13.3-1995. Rf: CIE 224:2017 (= ANSI/IES TM-30-20 Rf). Rg: ANSI/IES TM-30-20. '!' marks a spectrum with warnings below.");
         if (notes.Count > 0)
         {
             output.WriteLine();

@@ -53,6 +53,46 @@ public class CliTests
     }
 
     [Fact]
+    public void Json_has_cri_and_fidelity_objects_with_the_documented_fields()
+    {
+        var (code, stdout, _) = Run("", ["analyze", "--format", "json", .. ExampleFiles()]);
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(stdout);
+        var dl = doc.RootElement[2];
+        var cri = dl.GetProperty("cri");
+        Assert.Equal(14, cri.GetProperty("r").GetArrayLength());
+        foreach (var f in new[] { "ra", "reference", "dc" }) Assert.True(cri.TryGetProperty(f, out _), f);
+        Assert.Equal("planckian", cri.GetProperty("reference").GetProperty("type").GetString());
+        var fid = dl.GetProperty("fidelity");
+        Assert.Equal(99, fid.GetProperty("rfCes").GetArrayLength());
+        Assert.Equal(16, fid.GetProperty("hueBins").GetArrayLength());
+        foreach (var f in new[] { "rf", "rcs", "rhs" }) Assert.True(fid.GetProperty("hueBins")[0].TryGetProperty(f, out _), f);
+        foreach (var f in new[] { "rf", "rg", "reference" }) Assert.True(fid.TryGetProperty(f, out _), f);
+    }
+
+    [Fact]
+    public void Metrics_option_limits_the_groups_and_rejects_unknown_names()
+    {
+        var (code, stdout, _) = Run("", ["analyze", "--format", "json", "--metrics", "colorimetry,cri", .. ExampleFiles()]);
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(stdout);
+        Assert.True(doc.RootElement[2].TryGetProperty("cri", out _));
+        Assert.False(doc.RootElement[2].TryGetProperty("fidelity", out _));
+        var (bad, _, err) = Run("", ["analyze", "--metrics", "cri,sparkle", .. ExampleFiles()]);
+        Assert.Equal(ExitCodes.UsageOrInputError, bad);
+        Assert.Contains("sparkle", err, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Text_table_shows_Ra_R9_Rf_Rg_and_the_drifted_unit_warning()
+    {
+        var (_, stdout, _) = Run("", ["analyze", .. ExampleFiles()]);
+        Assert.Contains("R9", stdout, StringComparison.Ordinal);
+        Assert.Contains("Rg", stdout, StringComparison.Ordinal);
+        Assert.Contains("DL-30-005: CIE 13.3", stdout, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Stdin_dash_reads_standard_input()
     {
         var text = "wl,bb\n" + string.Join("\n", Enumerable.Range(380, 401).Select(w => $"{w},1"));

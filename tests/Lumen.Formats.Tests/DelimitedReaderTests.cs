@@ -174,8 +174,51 @@ public class DelimitedReaderTests
         var lines = sw.ToString().TrimEnd().Split('\n');
         Assert.Equal(3, lines.Length);
         Assert.Equal(string.Join(',', ResultWriters.CsvColumns), lines[0].TrimEnd('\r'));
-        Assert.Equal(ResultWriters.CsvColumns.Count, lines[2].Split(',').Length);
+        Assert.Equal(ResultWriters.CsvColumns.Count, SplitCsv(lines[2].TrimEnd('\r')).Length);
+        Assert.Equal(ResultWriters.CsvColumns.Count, SplitCsv(lines[1].TrimEnd('\r')).Length);
         Assert.Contains(",error,", lines[2], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Csv_has_flat_rendition_columns_filled_for_results()
+    {
+        var recs = Read("wl,eq\n" + string.Join("\n", Enumerable.Range(380, 401).Select(w => $"{w},1")));
+        var items = recs.Select(r => AnalysisItem.From(r, AssessmentOptions.Default)).ToList();
+        var sw = new StringWriter();
+        ResultWriters.WriteCsv(items, sw);
+        var lines = sw.ToString().TrimEnd().Split('\n');
+        var header = SplitCsv(lines[0].TrimEnd('\r'));
+        var row = SplitCsv(lines[1].TrimEnd('\r'));
+        Assert.Equal(header.Length, row.Length);
+        foreach (var c in new[] { "ra", "r1", "r9", "r14", "rf", "rg", "rf_h1", "rcs_h16", "rhs_h8" })
+        {
+            int i = Array.IndexOf(header, c);
+            Assert.True(i >= 0, c);
+            Assert.True(double.TryParse(row[i], System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _), c);
+        }
+    }
+
+    /// <summary>RFC 4180 field splitter for one line (test helper).</summary>
+    internal static string[] SplitCsv(string line)
+    {
+        var fields = new List<string>();
+        var sb = new System.Text.StringBuilder();
+        bool quoted = false;
+        for (int i = 0; i < line.Length; i++)
+        {
+            char c = line[i];
+            if (quoted)
+            {
+                if (c == '"' && i + 1 < line.Length && line[i + 1] == '"') { sb.Append('"'); i++; }
+                else if (c == '"') quoted = false;
+                else sb.Append(c);
+            }
+            else if (c == '"') quoted = true;
+            else if (c == ',') { fields.Add(sb.ToString()); sb.Clear(); }
+            else sb.Append(c);
+        }
+        fields.Add(sb.ToString());
+        return fields.ToArray();
     }
 
     [Fact]

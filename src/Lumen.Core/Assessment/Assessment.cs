@@ -1,15 +1,34 @@
 using Lumen.Blackbody;
 using Lumen.Cie;
 using Lumen.Colorimetry;
+using Lumen.Rendition;
 using Lumen.Spectra;
 using Lumen.Temperature;
 
 namespace Lumen.Assessment;
 
+/// <summary>Groups of results a user can ask for (colorimetry is always computed: everything needs it).</summary>
+[Flags]
+public enum MetricGroups
+{
+    /// <summary>XYZ, chromaticity, CCT and Duv.</summary>
+    Colorimetry = 1,
+
+    /// <summary>CIE 13.3 Ra and R1–R14.</summary>
+    Cri = 2,
+
+    /// <summary>CIE 224 Rf and IES TM-30 Rg and hue-bin values.</summary>
+    Fidelity = 4,
+
+    /// <summary>Everything.</summary>
+    All = Colorimetry | Cri | Fidelity,
+}
+
 /// <summary>What to compute and how.</summary>
 /// <param name="Observer">Observer for the reported tristimulus values and chromaticity (CCT always uses 2°).</param>
 /// <param name="Cct">CCT method and c2 convention.</param>
-public sealed record AssessmentOptions(Observer Observer = Observer.Cie1931TwoDegree, CctOptions? Cct = null)
+/// <param name="Metrics">Which result groups to compute (default all).</param>
+public sealed record AssessmentOptions(Observer Observer = Observer.Cie1931TwoDegree, CctOptions? Cct = null, MetricGroups Metrics = MetricGroups.All)
 {
     /// <summary>The defaults: 2° observer, exact-locus CCT with CIE 15 c2.</summary>
     public static AssessmentOptions Default { get; } = new();
@@ -28,6 +47,7 @@ public sealed record AssessmentOptions(Observer Observer = Observer.Cie1931TwoDe
 /// <param name="IntegrationEndNm">Last wavelength of the integration grid, nm.</param>
 /// <param name="IntegrationStepNm">Integration step, nm.</param>
 /// <param name="Sampling">How the spectrum was brought onto the integration grid.</param>
+/// <param name="NegativeSamples">Number of input samples below zero (kept in the sums).</param>
 public sealed record Provenance(
     IReadOnlyDictionary<string, string> Methods,
     IReadOnlyList<string> Standards,
@@ -37,7 +57,8 @@ public sealed record Provenance(
     int IntegrationStartNm,
     int IntegrationEndNm,
     int IntegrationStepNm,
-    string Sampling);
+    string Sampling,
+    int NegativeSamples);
 
 /// <summary>Everything Lumen computed for one spectrum; every writer, plot and report reads this.</summary>
 /// <param name="Name">Spectrum name.</param>
@@ -48,6 +69,8 @@ public sealed record Provenance(
 /// <param name="Chromaticity">Chromaticity for <see cref="Observer"/>.</param>
 /// <param name="Chromaticity2Degree">CIE 1931 2° chromaticity (what CCT and Duv use).</param>
 /// <param name="Cct">CCT and Duv.</param>
+/// <param name="Cri">CIE 13.3 colour rendering, when asked for and computable.</param>
+/// <param name="Fidelity">CIE 224 / TM-30 results, when asked for and computable.</param>
 /// <param name="Warnings">Plain-language warnings a practitioner needs.</param>
 /// <param name="Provenance">Methods, standards, constants, ranges.</param>
 public sealed record Assessment(
@@ -59,6 +82,8 @@ public sealed record Assessment(
     Chromaticity Chromaticity,
     Chromaticity Chromaticity2Degree,
     CctResult Cct,
+    CriResult? Cri,
+    FidelityResult? Fidelity,
     IReadOnlyList<string> Warnings,
     Provenance Provenance);
 
@@ -82,8 +107,7 @@ public static class Assessor
         var warnings = new List<string>();
         var samples = Resampler.ForCieSums(spectrum);
         CoverageWarnings(spectrum, warnings);
-        if (spectrum.NegativeSampleCount > 0)
-            warnings.Add($"{spectrum.NegativeSampleCount} sample(s) below zero (instrument noise) kept in the sums, not clipped.");
+        NegativeValueWarning(spectrum, warnings);
 
         var raw2 = Colorimeter.RawSums(samples, Observer.Cie1931TwoDegree);
         var rawObs = options.Observer == Observer.Cie1931TwoDegree ? raw2 : Colorimeter.RawSums(samples, options.Observer);
@@ -99,6 +123,22 @@ public static class Assessor
         var cct = CctSolver.Solve(chroma2, options.CctOptions);
         CctWarnings(cct, warnings);
 
+        CriResult? cri = null;
+        FidelityResult? fidelity = null;
+        bool wantCri = options.Metrics.HasFlag(MetricGroups.Cri), wantFidelity = options.Metrics.HasFlag(MetricGroups.Fidelity);
+        if ((wantCri || wantFidelity) && RenditionComputable(cct, warnings))
+        {
+            if (wantCri)
+            {
+                cri = ColorRenderingIndex.Compute(samples, cct.CctKelvin);
+                if (!cri.DcValid)
+                    warnings.Add($"CIE 13.3: the chromaticity distance DC = {cri.Dc:0.0000} to the reference exceeds 5.4e-3; Ra is not reliable for this source.");
+            }
+            if (wantFidelity) fidelity = FidelityIndex.Compute(samples, cct.CctKelvin);
+            if (cct.Conditions.HasFlag(CctConditions.FarFromLocus))
+                warnings.Add("Colour rendering indices compare the source with a reference at its CCT; with |Duv| > 0.05 that comparison is not meaningful.");
+        }
+
         var cctOpt = options.CctOptions;
         var provenance = new Provenance(
             new Dictionary<string, string>
@@ -107,11 +147,34 @@ public static class Assessor
                 ["cct"] = CctResult.Describe(cctOpt.Method),
                 ["planckianLocus"] = "Planck's law × CIE 1931 2° CMFs, 360–830 nm at 1 nm",
                 ["sampling"] = samples.Method,
+                ["cri"] = "CIE 13.3-1995 test-colour-sample method (2°, TCS01–14, reference Planckian < 5000 K, CIE daylight ≥ 5000 K)",
+                ["fidelity"] = "CIE 224:2017 Rf (c_f = 6.73, 99 CES, CIE 1964 10°, CAM02-UCS); ANSI/IES TM-30-20 Rg and hue bins",
             },
-            ["CIE 015:2018 (colorimetry)", "ISO/CIE 11664-1:2019 (observers)", "ANSI C78.377 (Duv sign)"],
+            ["CIE 015:2018 (colorimetry)", "ISO/CIE 11664-1:2019 (observers)", "ANSI C78.377 (Duv sign)", "CIE 13.3-1995 (Ra, Ri)", "CIE 224:2017 (Rf)", "ANSI/IES TM-30-20 (Rg, hue bins)"],
             PlanckConstants.For(cctOpt.C2).C2,
-            spectrum.FirstNm, spectrum.LastNm, samples.StartNm, samples.EndNm, samples.StepNm, samples.Method);
-        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, chroma, chroma2, cct, warnings, provenance);
+            spectrum.FirstNm, spectrum.LastNm, samples.StartNm, samples.EndNm, samples.StepNm, samples.Method, spectrum.NegativeSampleCount);
+        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, chroma, chroma2, cct, cri, fidelity, warnings, provenance);
+    }
+
+    /// <summary>Fraction of the peak below which negative samples are reported as a warning (common practice).</summary>
+    public const double NegativeWarningFraction = 0.01;
+
+    /// <summary>
+    /// Warns when samples fall below zero by more than 1 % of the peak (more than instrument noise: a dark
+    /// reference or stray-light problem). Smaller negatives are only counted in the provenance; all are kept
+    /// in the sums, because clipping biases low signals (CIE 167 practice).
+    /// </summary>
+    /// <param name="spectrum">The spectrum.</param>
+    /// <param name="warnings">List to add to.</param>
+    public static void NegativeValueWarning(Spectrum spectrum, List<string> warnings)
+    {
+        ArgumentNullException.ThrowIfNull(spectrum);
+        ArgumentNullException.ThrowIfNull(warnings);
+        if (spectrum.NegativeSampleCount == 0) return;
+        double peak = 0, min = 0;
+        foreach (var v in spectrum.Values) { peak = Math.Max(peak, v); min = Math.Min(min, v); }
+        if (peak > 0 && -min > NegativeWarningFraction * peak)
+            warnings.Add($"{spectrum.NegativeSampleCount} sample(s) below zero, down to {min / peak * 100:0.0} % of the peak: check the dark reference; values kept in the sums, not clipped.");
     }
 
     /// <summary>Adds the warning for a spectrum that does not cover 380–780 nm.</summary>
@@ -126,6 +189,23 @@ public static class Assessor
         if (spectrum.LastNm < ExpectedLastNm) gaps.Add($"{spectrum.LastNm:0.#}–{ExpectedLastNm} nm");
         if (gaps.Count > 0)
             warnings.Add($"Spectrum covers {spectrum.FirstNm:0.#}–{spectrum.LastNm:0.#} nm, not all of 380–780 nm; {string.Join(" and ", gaps)} taken as zero (emission spectrum).");
+    }
+
+    /// <summary>Lowest CCT for which Lumen builds a rendition reference, K.</summary>
+    public const double RenditionMinCctKelvin = 1000;
+
+    /// <summary>Highest CCT for which Lumen builds a rendition reference (end of the CIE daylight formula), K.</summary>
+    public const double RenditionMaxCctKelvin = 25000;
+
+    private static bool RenditionComputable(CctResult cct, List<string> warnings)
+    {
+        if (!double.IsFinite(cct.CctKelvin)) return false;
+        if (cct.CctKelvin < RenditionMinCctKelvin || cct.CctKelvin > RenditionMaxCctKelvin)
+        {
+            warnings.Add($"Colour rendition not computed: CCT {cct.CctKelvin:0} K is outside 1000–25000 K, where the reference illuminants are defined.");
+            return false;
+        }
+        return true;
     }
 
     private static void CctWarnings(CctResult cct, List<string> warnings)

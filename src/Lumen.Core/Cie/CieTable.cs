@@ -69,6 +69,19 @@ public sealed class CieTable
         return new Spectrum(w, _columns[column], SpectralUnit.Relative, column, SpectrumOrigin.Generated($"CIE {Name}"));
     }
 
+    /// <summary>
+    /// This table interpolated to 1 nm by Sprague (CIE 167) over its own range; the table itself when already at 1 nm.
+    /// </summary>
+    /// <returns>A 1 nm table named <c>name@1nm</c>.</returns>
+    public CieTable SpragueToOneNm()
+    {
+        if (StepNm == 1) return this;
+        var dict = new Dictionary<string, double[]>(StringComparer.Ordinal);
+        foreach (var c in ColumnNames)
+            dict[c] = Lumen.Spectra.Resampler.SpragueToOneNm(StartNm, StepNm, _columns[c]).Values;
+        return new CieTable(Name + "@1nm", StartNm, 1, ColumnNames, dict);
+    }
+
     internal static CieTable Parse(string name, TextReader reader)
     {
         string header = reader.ReadLine() ?? throw new InvalidDataException($"data-cie/{name}.csv is empty.");
