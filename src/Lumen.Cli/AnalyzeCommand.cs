@@ -39,7 +39,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
 
     public Option<string> MetricsOption { get; } = new("--metrics")
     {
-        Description = "Result groups, comma-separated: colorimetry, cri, fidelity (tm30 is an alias), all. Default: all.",
+        Description = "Result groups, comma-separated: colorimetry, cri, fidelity (tm30), photometry, nonvisual, spectral, all. Default: all.",
         DefaultValueFactory = _ => "all",
     };
 
@@ -56,6 +56,9 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
                 case "colorimetry": case "colourimetry": break;
                 case "cri": groups |= MetricGroups.Cri; break;
                 case "fidelity": case "tm30": case "cie224": groups |= MetricGroups.Fidelity; break;
+                case "photometry": groups |= MetricGroups.Photometry; break;
+                case "nonvisual": case "non-visual": case "s026": groups |= MetricGroups.NonVisual; break;
+                case "spectral": groups |= MetricGroups.Spectral; break;
                 default: bad = part; return false;
             }
         }
@@ -91,7 +94,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         }
         if (!TryParseMetrics(parse.GetValue(MetricsOption) ?? "all", out var metrics, out var badMetric))
         {
-            stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity or all.");
+            stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity, photometry, nonvisual, spectral or all.");
             return ExitCodes.UsageOrInputError;
         }
         var options = new AssessmentOptions(observer, Metrics: metrics);

@@ -15,6 +15,8 @@ public static class LumenApp
     {
         var root = new RootCommand("lumen — colorimetry, CCT/Duv and colour quality of measured light-source spectra.");
         root.Subcommands.Add(new AnalyzeCommand(stdin, stdout, stderr).Build());
+        root.Subcommands.Add(new BlackbodyCommand(stdout, stderr).Build());
+        root.Subcommands.Add(new FitCommand(stdin, stdout, stderr).Build());
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {

@@ -138,6 +138,53 @@ public static class ResultWriters
             w.WriteString("method", "CIE 224:2017 Rf; ANSI/IES TM-30-20 Rg and hue bins (rcs in %)");
             w.WriteEndObject();
         }
+        if (a.Photometry is { } ph)
+        {
+            w.WriteStartObject("photometry");
+            Num(w, "ler", ph.LerLumensPerWatt);
+            Num(w, "spRatio", ph.SpRatio);
+            w.WriteStartObject("lerBandNm");
+            w.WriteNumber("first", ph.BandFirstNm); w.WriteNumber("last", ph.BandLastNm);
+            w.WriteEndObject();
+            if (ph.Quantity is { } q)
+            {
+                Num(w, PhotometricFieldName(q), ph.Photometric!.Value);
+                Num(w, "scotopic" + char.ToUpperInvariant(PhotometricFieldName(q)[0]) + PhotometricFieldName(q)[1..], ph.Scotopic!.Value);
+                Num(w, RadiometricFieldName(q), ph.Radiometric!.Value);
+            }
+            w.WriteEndObject();
+        }
+        if (a.NonVisual is { } nv)
+        {
+            w.WriteStartObject("nonVisual");
+            foreach (var r in nv)
+            {
+                w.WriteStartObject(NonVisualName(r.Kind));
+                Num(w, "efficacy", r.EfficacyMilliwattsPerLumen);
+                Num(w, "der", r.Der);
+                if (r.Irradiance is { } irr)
+                {
+                    var q = Lumen.Photometry.Photometer.QuantityOf(a.Unit);
+                    Num(w, "irradiance", irr);
+                    w.WriteString("irradianceUnit", Lumen.Photometry.Photometer.RadiometricUnitSymbol(q));
+                    Num(w, "edi", r.Edi!.Value);
+                    w.WriteString("ediUnit", Lumen.Photometry.Photometer.UnitSymbol(q));
+                }
+                w.WriteEndObject();
+            }
+            w.WriteEndObject();
+        }
+        if (a.Spectral is { } sd)
+        {
+            w.WriteStartObject("spectral");
+            Num(w, "peakNm", sd.PeakNm);
+            Num(w, "centroidNm", sd.CentroidNm);
+            if (sd.FwhmNm is { } fw) Num(w, "fwhmNm", fw); else w.WriteNull("fwhmNm");
+            if (sd.DominantNm is { } dm) Num(w, "dominantNm", dm); else w.WriteNull("dominantNm");
+            Num(w, "purity", sd.Purity);
+            w.WriteString("whitePoint", sd.WhitePoint);
+            w.WriteEndObject();
+        }
         w.WriteStartArray("warnings");
         foreach (var warning in a.Warnings) w.WriteStringValue(warning);
         w.WriteEndArray();
@@ -162,6 +209,40 @@ public static class ResultWriters
         w.WriteEndObject();
     }
 
+    /// <summary>JSON field name of a photometric quantity, unit in the name.</summary>
+    /// <param name="q">Quantity.</param>
+    /// <returns>For example <c>illuminanceLux</c>.</returns>
+    public static string PhotometricFieldName(Lumen.Photometry.PhotometricQuantity q) => q switch
+    {
+        Lumen.Photometry.PhotometricQuantity.IlluminanceLux => "illuminanceLux",
+        Lumen.Photometry.PhotometricQuantity.LuminanceCandelaPerSquareMetre => "luminanceCdPerM2",
+        Lumen.Photometry.PhotometricQuantity.IntensityCandela => "intensityCd",
+        _ => "fluxLm",
+    };
+
+    /// <summary>JSON field name of the radiometric total, unit in the name.</summary>
+    /// <param name="q">Quantity.</param>
+    /// <returns>For example <c>irradianceWPerM2</c>.</returns>
+    public static string RadiometricFieldName(Lumen.Photometry.PhotometricQuantity q) => q switch
+    {
+        Lumen.Photometry.PhotometricQuantity.IlluminanceLux => "irradianceWPerM2",
+        Lumen.Photometry.PhotometricQuantity.LuminanceCandelaPerSquareMetre => "radianceWPerSrM2",
+        Lumen.Photometry.PhotometricQuantity.IntensityCandela => "intensityWPerSr",
+        _ => "fluxW",
+    };
+
+    /// <summary>JSON name of an α-opic kind.</summary>
+    /// <param name="k">Kind.</param>
+    /// <returns>For example <c>sConeOpic</c>.</returns>
+    public static string NonVisualName(Lumen.Photometry.AlphaOpicKind k) => k switch
+    {
+        Lumen.Photometry.AlphaOpicKind.Melanopic => "melanopic",
+        Lumen.Photometry.AlphaOpicKind.SConeOpic => "sConeOpic",
+        Lumen.Photometry.AlphaOpicKind.MConeOpic => "mConeOpic",
+        Lumen.Photometry.AlphaOpicKind.LConeOpic => "lConeOpic",
+        _ => "rhodopic",
+    };
+
     private static void WriteReference(Utf8JsonWriter w, Lumen.Rendition.ReferenceIlluminant r)
     {
         w.WriteStartObject("reference");
@@ -185,6 +266,9 @@ public static class ResultWriters
         "ra", "r1", "r2", "r3", "r4", "r5", "r6", "r7", "r8", "r9", "r10", "r11", "r12", "r13", "r14", "cri_reference", "dc",
         "rf", "rg", .. Enumerable.Range(1, 16).Select(j => $"rf_h{j}"), .. Enumerable.Range(1, 16).Select(j => $"rcs_h{j}"),
         .. Enumerable.Range(1, 16).Select(j => $"rhs_h{j}"), "fidelity_reference",
+        "ler_lm_per_w", "sp_ratio", "photometric_value", "photometric_unit", "radiometric_value", "radiometric_unit",
+        "mel_efficacy_mw_per_lm", "mel_der", "mel_edi", "sc_der", "mc_der", "lc_der", "rh_der",
+        "peak_nm", "centroid_nm", "fwhm_nm", "dominant_nm", "purity",
         "warnings", "error_line", "error_column", "error",
     ];
 
@@ -225,6 +309,28 @@ public static class ResultWriters
                     cells.Add(Csv(fi.Reference.Description));
                 }
                 else cells.AddRange(Enumerable.Repeat("", 51));
+                if (a.Photometry is { } ph)
+                {
+                    cells.Add(F(ph.LerLumensPerWatt)); cells.Add(F(ph.SpRatio));
+                    cells.Add(ph.Photometric is { } pv ? F(pv) : "");
+                    cells.Add(ph.Quantity is { } q ? Lumen.Photometry.Photometer.UnitSymbol(q) : "");
+                    cells.Add(ph.Radiometric is { } rv ? F(rv) : "");
+                    cells.Add(ph.Quantity is { } q2 ? Lumen.Photometry.Photometer.RadiometricUnitSymbol(q2) : "");
+                }
+                else cells.AddRange(Enumerable.Repeat("", 6));
+                if (a.NonVisual is { } nv)
+                {
+                    cells.Add(F(nv[0].EfficacyMilliwattsPerLumen)); cells.Add(F(nv[0].Der));
+                    cells.Add(nv[0].Edi is { } edi ? F(edi) : "");
+                    for (int k = 1; k < 5; k++) cells.Add(F(nv[k].Der));
+                }
+                else cells.AddRange(Enumerable.Repeat("", 7));
+                if (a.Spectral is { } sd)
+                {
+                    cells.Add(F(sd.PeakNm)); cells.Add(F(sd.CentroidNm));
+                    cells.Add(sd.FwhmNm is { } fw ? F(fw) : ""); cells.Add(sd.DominantNm is { } dm ? F(dm) : ""); cells.Add(F(sd.Purity));
+                }
+                else cells.AddRange(Enumerable.Repeat("", 5));
                 cells.Add(Csv(string.Join(" | ", a.Warnings)));
                 cells.AddRange(["", "", ""]);
             }

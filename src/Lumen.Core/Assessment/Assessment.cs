@@ -1,6 +1,8 @@
 using Lumen.Blackbody;
 using Lumen.Cie;
 using Lumen.Colorimetry;
+using Lumen.Descriptors;
+using Lumen.Photometry;
 using Lumen.Rendition;
 using Lumen.Spectra;
 using Lumen.Temperature;
@@ -20,8 +22,17 @@ public enum MetricGroups
     /// <summary>CIE 224 Rf and IES TM-30 Rg and hue-bin values.</summary>
     Fidelity = 4,
 
+    /// <summary>LER, S/P ratio and absolute photometric quantities.</summary>
+    Photometry = 8,
+
+    /// <summary>CIE S 026 α-opic quantities.</summary>
+    NonVisual = 16,
+
+    /// <summary>Peak, centroid, FWHM, dominant wavelength and purity.</summary>
+    Spectral = 32,
+
     /// <summary>Everything.</summary>
-    All = Colorimetry | Cri | Fidelity,
+    All = Colorimetry | Cri | Fidelity | Photometry | NonVisual | Spectral,
 }
 
 /// <summary>What to compute and how.</summary>
@@ -71,6 +82,9 @@ public sealed record Provenance(
 /// <param name="Cct">CCT and Duv.</param>
 /// <param name="Cri">CIE 13.3 colour rendering, when asked for and computable.</param>
 /// <param name="Fidelity">CIE 224 / TM-30 results, when asked for and computable.</param>
+/// <param name="Photometry">Photometric results, when asked for.</param>
+/// <param name="NonVisual">CIE S 026 α-opic results (melanopic first), when asked for.</param>
+/// <param name="Spectral">Spectral descriptors, when asked for.</param>
 /// <param name="Warnings">Plain-language warnings a practitioner needs.</param>
 /// <param name="Provenance">Methods, standards, constants, ranges.</param>
 public sealed record Assessment(
@@ -84,6 +98,9 @@ public sealed record Assessment(
     CctResult Cct,
     CriResult? Cri,
     FidelityResult? Fidelity,
+    PhotometricResult? Photometry,
+    IReadOnlyList<AlphaOpicResult>? NonVisual,
+    SpectralDescriptorResult? Spectral,
     IReadOnlyList<string> Warnings,
     Provenance Provenance);
 
@@ -139,6 +156,12 @@ public static class Assessor
                 warnings.Add("Colour rendering indices compare the source with a reference at its CCT; with |Duv| > 0.05 that comparison is not meaningful.");
         }
 
+        var photometry = options.Metrics.HasFlag(MetricGroups.Photometry) ? Photometer.Compute(samples, spectrum.Unit) : null;
+        var nonVisual = options.Metrics.HasFlag(MetricGroups.NonVisual) ? AlphaOpic.Compute(samples, spectrum.Unit) : null;
+        var spectral = options.Metrics.HasFlag(MetricGroups.Spectral) ? SpectralDescriptors.Compute(spectrum, chroma2) : null;
+        if (nonVisual is not null && (spectrum.FirstNm > ExpectedFirstNm || spectrum.LastNm < ExpectedLastNm))
+            warnings.Add("CIE S 026 quantities need 380–780 nm; the missing part was taken as zero.");
+
         var cctOpt = options.CctOptions;
         var provenance = new Provenance(
             new Dictionary<string, string>
@@ -149,11 +172,15 @@ public static class Assessor
                 ["sampling"] = samples.Method,
                 ["cri"] = "CIE 13.3-1995 test-colour-sample method (2°, TCS01–14, reference Planckian < 5000 K, CIE daylight ≥ 5000 K)",
                 ["fidelity"] = "CIE 224:2017 Rf (c_f = 6.73, 99 CES, CIE 1964 10°, CAM02-UCS); ANSI/IES TM-30-20 Rg and hue bins",
+                ["photometry"] = $"K_m = {Photometer.KmLumensPerWatt} lm/W, K'_m = {Photometer.KmPrimeLumensPerWatt} lm/W; LER over the measured band {samples.StartNm}–{samples.EndNm} nm",
+                ["nonVisual"] = "CIE S 026:2018 α-opic action spectra; D65 reference computed from the CIE D65 table (1 nm, 380–780 nm)",
+                ["dominantWavelength"] = "CIE 15 §9.1, CIE 1931 2° spectrum locus, achromatic point E",
             },
-            ["CIE 015:2018 (colorimetry)", "ISO/CIE 11664-1:2019 (observers)", "ANSI C78.377 (Duv sign)", "CIE 13.3-1995 (Ra, Ri)", "CIE 224:2017 (Rf)", "ANSI/IES TM-30-20 (Rg, hue bins)"],
+            ["CIE 015:2018 (colorimetry)", "ISO/CIE 11664-1:2019 (observers)", "ANSI C78.377 (Duv sign)", "CIE 13.3-1995 (Ra, Ri)", "CIE 224:2017 (Rf)", "ANSI/IES TM-30-20 (Rg, hue bins)", "CIE 018:2019 (photometry)", "CIE S 026:2018 (α-opic)"],
             PlanckConstants.For(cctOpt.C2).C2,
             spectrum.FirstNm, spectrum.LastNm, samples.StartNm, samples.EndNm, samples.StepNm, samples.Method, spectrum.NegativeSampleCount);
-        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, chroma, chroma2, cct, cri, fidelity, warnings, provenance);
+        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, chroma, chroma2, cct, cri, fidelity,
+            photometry, nonVisual, spectral, warnings, provenance);
     }
 
     /// <summary>Fraction of the peak below which negative samples are reported as a warning (common practice).</summary>
