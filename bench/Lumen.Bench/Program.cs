@@ -11,6 +11,8 @@ public static class Program
 {
     public static void Main(string[] args)
     {
+        if (args.Length >= 1 && args[0] == "batch-scale") { BatchScale.Run(args.Length > 1 ? int.Parse(args[1], CultureInfo.InvariantCulture) : 1_000_000); return; }
+        if (args.Length >= 5 && args[0] == "batch-child") { BatchScale.Child(args[1], args[2], args[3], args[4]); return; }
         var results = Path.GetFullPath(Path.Combine(FindRoot(), "bench", "results"));
         var config = DefaultConfig.Instance
             .AddJob(Job.ShortRun)
@@ -40,7 +42,8 @@ public static class Program
                 double ns = r.ResultStatistics.Mean;
                 var type = r.BenchmarkCase.Descriptor.Type;
                 int per = type == typeof(ColorimetryBenchmarks) ? ColorimetryBenchmarks.BatchSize
-                    : type == typeof(RenditionBenchmarks) ? RenditionBenchmarks.BatchSize : 1;
+                    : type == typeof(RenditionBenchmarks) ? RenditionBenchmarks.BatchSize
+                    : type == typeof(BatchBenchmarks) ? BatchBenchmarks.Rows : 1;
                 double rate = per / (ns * 1e-9);
                 lines.Add(string.Create(CultureInfo.InvariantCulture,
                     $"| {r.BenchmarkCase.Descriptor.WorkloadMethodDisplayInfo} | {ns / 1000:0.0} µs | {per} | {rate:N0} |"));

@@ -101,7 +101,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         var items = new List<AnalysisItem>();
         foreach (var file in parse.GetValue(Files) ?? [])
         {
-            foreach (var record in DelimitedSpectrumReader.ReadFile(file, unit, stdin))
+            foreach (var record in SpectrumFiles.Read(file, unit, stdin))
             {
                 if (record.Error is not null) stderr.WriteLine($"lumen: {record.Error}");
                 items.Add(AnalysisItem.From(record, options));

@@ -35,7 +35,7 @@ internal sealed class FitCommand(TextReader stdin, TextWriter stdout, TextWriter
         var results = new List<(SpectrumRecord Record, GreyBodyFitResult? Fit)>();
         foreach (var f in parse.GetValue(Files) ?? [])
         {
-            foreach (var rec in DelimitedSpectrumReader.ReadFile(f, null, stdin))
+            foreach (var rec in SpectrumFiles.Read(f, null, stdin))
             {
                 if (rec.Spectrum is null) { stderr.WriteLine($"lumen: {rec.Error}"); results.Add((rec, null)); continue; }
                 results.Add((rec, GreyBodyFit.Fit(rec.Spectrum, slope)));

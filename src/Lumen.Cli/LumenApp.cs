@@ -11,12 +11,14 @@ public static class LumenApp
     /// <param name="stdout">Results.</param>
     /// <param name="stderr">Diagnostics.</param>
     /// <returns>An exit code from <see cref="ExitCodes"/>.</returns>
-    public static int Run(string[] args, TextReader stdin, TextWriter stdout, TextWriter stderr)
+    /// <param name="stderrIsTerminal">True when standard error is a terminal (progress lines are shown then).</param>
+    public static int Run(string[] args, TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal = false)
     {
         var root = new RootCommand("lumen — colorimetry, CCT/Duv and colour quality of measured light-source spectra.");
         root.Subcommands.Add(new AnalyzeCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new BlackbodyCommand(stdout, stderr).Build());
         root.Subcommands.Add(new FitCommand(stdin, stdout, stderr).Build());
+        root.Subcommands.Add(new BatchCommand(stdout, stderr, stderrIsTerminal).Build());
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {
@@ -39,7 +41,7 @@ public static class Program
         var stdout = new StreamWriter(Console.OpenStandardOutput()) { AutoFlush = false };
         try
         {
-            return LumenApp.Run(args, Console.In, stdout, Console.Error);
+            return LumenApp.Run(args, Console.In, stdout, Console.Error, !Console.IsErrorRedirected);
         }
         finally
         {

@@ -24,6 +24,9 @@ public sealed record ReadDiagnostic(string Source, int Line, int Column, string 
 /// <param name="Error">The error, when it was not.</param>
 public sealed record SpectrumRecord(string Source, int Column, string Name, Spectrum? Spectrum, ReadDiagnostic? Error)
 {
+    /// <summary>One-based line of the record in its file (row layout), or 0 (column layout).</summary>
+    public int Line { get; init; }
+
     /// <summary>True when the record holds a spectrum.</summary>
     public bool IsOk => Spectrum is not null;
 }

@@ -7,7 +7,14 @@ using Lumen.Temperature;
 
 // Writes the bundled example data (an invented scenario; see examples/README.md).
 // Usage: dotnet run --project tools/Lumen.Examples -- [examples-folder]
+//        dotnet run --project tools/Lumen.Examples -- batch OUT.csv ROWS [SEED] [--faults]
 // Deterministic: every random draw comes from the fixed seeds below.
+if (args.Length > 0 && args[0] == "batch")
+{
+    BatchFile.Write(args[1], int.Parse(args[2], System.Globalization.CultureInfo.InvariantCulture),
+        args.Length > 3 && int.TryParse(args[3], out var seed) ? seed : 1, args.Contains("--faults"));
+    return;
+}
 var dir = args.Length > 0 ? args[0] : "examples";
 Directory.CreateDirectory(dir);
 var inv = CultureInfo.InvariantCulture;
@@ -59,6 +66,10 @@ for (double w = 360.3; w <= 830; w += 0.7 + 0.02 * Math.Sin(w / 40)) pix.Add(Mat
 var panel = SyntheticSpectra.PhosphorLed(Tune(4000, 0.001, 448, 545), pix.ToArray(), "office-panel-4000K").Scale(0.0125);
 WriteColumns(Path.Combine(dir, "foyer-panel-4000K.tsv"), [SyntheticSpectra.WithNoise(panel, 0.003, 99)], '\t', "W/m2/nm",
     "Marrowby Civic Hall (fictional) — foyer panel, array spectrometer pixels (irregular grid), spectral irradiance");
+
+Directory.CreateDirectory(Path.Combine(dir, "batch"));
+BatchFile.Write(Path.Combine(dir, "batch", "quillfern-dl30-lot-A17.csv"), 240, 17, faults: true);
+Console.WriteLine($"wrote {Path.Combine(dir, "batch", "quillfern-dl30-lot-A17.csv")}");
 
 void WriteColumns(string path, IReadOnlyList<Spectrum> spectra, char delim, string unit, string title, bool decimalComma = false)
 {

@@ -1,0 +1,237 @@
+using Lumen.Colorimetry;
+
+namespace Lumen.Quality;
+
+/// <summary>Running mean, standard deviation, minimum and maximum (Welford's algorithm).</summary>
+public sealed class RunningStatistics
+{
+    private double _mean, _m2;
+
+    /// <summary>Number of values.</summary>
+    public long Count { get; private set; }
+
+    /// <summary>Mean (NaN when empty).</summary>
+    public double Mean => Count > 0 ? _mean : double.NaN;
+
+    /// <summary>Sample standard deviation (n − 1; NaN below two values).</summary>
+    public double StandardDeviation => Count > 1 ? Math.Sqrt(_m2 / (Count - 1)) : double.NaN;
+
+    /// <summary>Minimum (NaN when empty).</summary>
+    public double Min { get; private set; } = double.NaN;
+
+    /// <summary>Maximum (NaN when empty).</summary>
+    public double Max { get; private set; } = double.NaN;
+
+    /// <summary>Adds a value (non-finite values are ignored).</summary>
+    /// <param name="x">The value.</param>
+    public void Add(double x)
+    {
+        if (!double.IsFinite(x)) return;
+        Count++;
+        double d = x - _mean;
+        _mean += d / Count;
+        _m2 += d * (x - _mean);
+        Min = Count == 1 ? x : Math.Min(Min, x);
+        Max = Count == 1 ? x : Math.Max(Max, x);
+    }
+}
+
+/// <summary>Process capability of one limited field.</summary>
+/// <param name="Field">Field path.</param>
+/// <param name="Lower">Lower specification limit, or null.</param>
+/// <param name="Upper">Upper specification limit, or null.</param>
+/// <param name="Mean">Mean.</param>
+/// <param name="StandardDeviation">Sample standard deviation.</param>
+/// <param name="Cpk">min((USL − μ)/3σ, (μ − LSL)/3σ) over the limits given (common practice); NaN when σ = 0 or fewer than 2 values.</param>
+public sealed record Capability(string Field, double? Lower, double? Upper, double Mean, double StandardDeviation, double Cpk);
+
+/// <summary>A unit flagged as a chromaticity outlier.</summary>
+/// <param name="Id">Record ID (name).</param>
+/// <param name="DeltaUPrimeVPrime">Δu′v′ from the batch median chromaticity.</param>
+/// <param name="RobustZ">(d − median d) / (1.4826·MAD).</param>
+public sealed record Outlier(string Id, double DeltaUPrimeVPrime, double RobustZ);
+
+/// <summary>Summary of a batch.</summary>
+/// <param name="RecordsRead">Records read (= results + errors).</param>
+/// <param name="Results">Records with a result.</param>
+/// <param name="Errors">Records that could not be read or computed.</param>
+/// <param name="Passed">Results that passed the spec.</param>
+/// <param name="Failed">Results that failed the spec.</param>
+/// <param name="Statistics">Mean/SD/min/max of key fields (cct.kelvin, cct.duv, cri.ra, cri.r9, fidelity.rf, fidelity.rg).</param>
+/// <param name="MeanUPrime">Mean u′.</param>
+/// <param name="MeanVPrime">Mean v′.</param>
+/// <param name="MaxPairwiseDeltaUPrimeVPrime">Largest Δu′v′ between any two units (convex-hull diameter).</param>
+/// <param name="StepsFromMean">Statistics of each unit's steps from the batch mean chromaticity.</param>
+/// <param name="StepsFromMeanP95">95th percentile of steps from the batch mean.</param>
+/// <param name="StepsFromTarget">Statistics of steps from the target (when the spec has one).</param>
+/// <param name="StepsFromTargetP95">95th percentile of steps from the target.</param>
+/// <param name="Outliers">Robust chromaticity outliers (median/MAD of Δu′v′ from the median, z &gt; 3.5).</param>
+/// <param name="Capabilities">Cpk per limited field.</param>
+public sealed record BatchSummary(
+    long RecordsRead, long Results, long Errors, long Passed, long Failed,
+    IReadOnlyDictionary<string, RunningStatistics> Statistics,
+    double MeanUPrime, double MeanVPrime, double MaxPairwiseDeltaUPrimeVPrime,
+    RunningStatistics StepsFromMean, double StepsFromMeanP95,
+    RunningStatistics StepsFromTarget, double StepsFromTargetP95,
+    IReadOnlyList<Outlier> Outliers, IReadOnlyList<Capability> Capabilities)
+{
+    /// <summary>Pass rate among results (NaN when none).</summary>
+    public double PassRate => Results > 0 ? (double)Passed / Results : double.NaN;
+}
+
+/// <summary>
+/// Accumulates a batch record by record (input order not required) and builds the summary.
+/// </summary>
+/// <remarks>Memory: the spectra are never kept; per result it keeps u′v′ (two floats), the steps from the
+/// target (one float) and the ID string — about 50–70 bytes a unit, for the percentile, outlier and spread
+/// statistics. Outliers: robust z of the Δu′v′ distance from the coordinate-wise median, with MAD scaled by
+/// 1.4826 and the 3.5 cut-off of Iglewicz and Hoaglin (common practice). Cpk = min((USL − μ)/3σ, (μ − LSL)/3σ)
+/// (common practice).</remarks>
+public sealed class BatchSummaryBuilder
+{
+    /// <summary>Fields summarised with mean/SD/min/max.</summary>
+    public static IReadOnlyList<string> SummaryFields { get; } = ["cct.kelvin", "cct.duv", "cri.ra", "cri.r9", "fidelity.rf", "fidelity.rg"];
+
+    private readonly Dictionary<string, RunningStatistics> _stats = SummaryFields.ToDictionary(f => f, _ => new RunningStatistics(), StringComparer.Ordinal);
+    private readonly Dictionary<string, RunningStatistics> _limited;
+    private readonly IReadOnlyList<(string Field, double? Min, double? Max)> _limits;
+    private readonly List<float> _u = [], _v = [], _stepsTarget = [];
+    private readonly List<string> _ids = [];
+    private readonly Func<double, double, double, double, double>? _steps; // (x1, y1, x2, y2) → steps; null when no ellipse metric
+    private long _records, _errors, _passed, _failed;
+
+    /// <summary>Creates a builder.</summary>
+    /// <param name="limits">The spec's field limits (for Cpk).</param>
+    /// <param name="stepsBetween">Step metric between two xy points (the spec's ellipse shape), or null.</param>
+    public BatchSummaryBuilder(IReadOnlyList<(string Field, double? Min, double? Max)> limits, Func<double, double, double, double, double>? stepsBetween)
+    {
+        ArgumentNullException.ThrowIfNull(limits);
+        _limits = limits;
+        _limited = limits.Select(l => l.Field).Distinct().ToDictionary(f => f, _ => new RunningStatistics(), StringComparer.Ordinal);
+        _steps = stepsBetween;
+    }
+
+    /// <summary>Counts a record that could not be read or computed.</summary>
+    public void AddError() { _records++; _errors++; }
+
+    /// <summary>Adds a result.</summary>
+    /// <param name="id">Record ID.</param>
+    /// <param name="chromaticity2Degree">Its 2° chromaticity.</param>
+    /// <param name="pass">Pass/fail against the spec.</param>
+    /// <param name="field">Field resolver (summary and limited fields).</param>
+    /// <param name="stepsFromTarget">Steps from the target, or null.</param>
+    public void AddResult(string id, Chromaticity chromaticity2Degree, bool pass, Func<string, double?> field, double? stepsFromTarget)
+    {
+        ArgumentNullException.ThrowIfNull(field);
+        _records++;
+        if (pass) _passed++; else _failed++;
+        foreach (var (name, s) in _stats) s.Add(field(name) ?? double.NaN);
+        foreach (var (name, s) in _limited) s.Add(field(name) ?? double.NaN);
+        if (chromaticity2Degree.IsDefined)
+        {
+            _u.Add((float)chromaticity2Degree.UPrime);
+            _v.Add((float)chromaticity2Degree.VPrime);
+            _ids.Add(id);
+            _stepsTarget.Add(stepsFromTarget is { } st ? (float)st : float.NaN);
+        }
+    }
+
+    /// <summary>Builds the summary.</summary>
+    /// <returns>The summary.</returns>
+    public BatchSummary Build()
+    {
+        int n = _u.Count;
+        double mu = 0, mv = 0;
+        for (int i = 0; i < n; i++) { mu += _u[i]; mv += _v[i]; }
+        mu = n > 0 ? mu / n : double.NaN; mv = n > 0 ? mv / n : double.NaN;
+
+        var fromMean = new RunningStatistics();
+        var fromMeanValues = new double[n];
+        var mean = Chromaticity.FromUPrimeVPrime(mu, mv);
+        for (int i = 0; i < n; i++)
+        {
+            var c = Chromaticity.FromUPrimeVPrime(_u[i], _v[i]);
+            fromMeanValues[i] = _steps is not null ? _steps(c.X, c.Y, mean.X, mean.Y) : c.DeltaUPrimeVPrime(mean) / Conformance.StandardEllipses.UPrimeVPrimePerStep;
+            fromMean.Add(fromMeanValues[i]);
+        }
+        var fromTarget = new RunningStatistics();
+        var targetValues = _stepsTarget.Where(float.IsFinite).Select(x => (double)x).ToArray();
+        foreach (var x in targetValues) fromTarget.Add(x);
+
+        var caps = _limits.Select(l =>
+        {
+            var s = _limited[l.Field];
+            double sd = s.StandardDeviation, m = s.Mean, cpk = double.PositiveInfinity;
+            if (l.Max is { } hi) cpk = Math.Min(cpk, (hi - m) / (3 * sd));
+            if (l.Min is { } lo) cpk = Math.Min(cpk, (m - lo) / (3 * sd));
+            if (!(sd > 0) || double.IsInfinity(cpk)) cpk = double.NaN;
+            return new Capability(l.Field, l.Min, l.Max, m, sd, cpk);
+        }).ToArray();
+
+        return new BatchSummary(_records, _records - _errors, _errors, _passed, _failed,
+            _stats, mu, mv, MaxPairwise(), fromMean, Percentile(fromMeanValues, 0.95), fromTarget, Percentile(targetValues, 0.95), Outliers(), caps);
+    }
+
+    /// <summary>Linear-interpolated percentile (common practice, "type 7").</summary>
+    /// <param name="values">Values (copied and sorted).</param>
+    /// <param name="p">Fraction in [0, 1].</param>
+    /// <returns>The percentile, NaN when empty.</returns>
+    public static double Percentile(IReadOnlyCollection<double> values, double p)
+    {
+        ArgumentNullException.ThrowIfNull(values);
+        if (values.Count == 0) return double.NaN;
+        var a = values.ToArray();
+        Array.Sort(a);
+        double h = (a.Length - 1) * p;
+        int i = (int)Math.Floor(h);
+        return i + 1 < a.Length ? a[i] + (h - i) * (a[i + 1] - a[i]) : a[i];
+    }
+
+    private double MaxPairwise()
+    {
+        int n = _u.Count;
+        if (n < 2) return 0;
+        // Convex hull (monotone chain), then the largest distance between hull vertices.
+        var pts = Enumerable.Range(0, n).Select(i => ((double)_u[i], (double)_v[i])).Distinct().OrderBy(p => p.Item1).ThenBy(p => p.Item2).ToArray();
+        if (pts.Length < 2) return 0;
+        static double Cross((double, double) o, (double, double) a, (double, double) b) => (a.Item1 - o.Item1) * (b.Item2 - o.Item2) - (a.Item2 - o.Item2) * (b.Item1 - o.Item1);
+        var hull = new List<(double, double)>();
+        foreach (var p in pts) { while (hull.Count >= 2 && Cross(hull[^2], hull[^1], p) <= 0) hull.RemoveAt(hull.Count - 1); hull.Add(p); }
+        int lower = hull.Count + 1;
+        for (int i = pts.Length - 2; i >= 0; i--) { var p = pts[i]; while (hull.Count >= lower && Cross(hull[^2], hull[^1], p) <= 0) hull.RemoveAt(hull.Count - 1); hull.Add(p); }
+        double best = 0;
+        for (int i = 0; i < hull.Count; i++)
+            for (int j = i + 1; j < hull.Count; j++)
+            {
+                double du = hull[i].Item1 - hull[j].Item1, dv = hull[i].Item2 - hull[j].Item2;
+                best = Math.Max(best, Math.Sqrt(du * du + dv * dv));
+            }
+        return best;
+    }
+
+    private IReadOnlyList<Outlier> Outliers()
+    {
+        int n = _u.Count;
+        if (n < 5) return [];
+        double mu = Median(_u.Select(x => (double)x).ToArray()), mv = Median(_v.Select(x => (double)x).ToArray());
+        var d = new double[n];
+        for (int i = 0; i < n; i++) { double du = _u[i] - mu, dv = _v[i] - mv; d[i] = Math.Sqrt(du * du + dv * dv); }
+        double md = Median((double[])d.Clone());
+        double mad = Median(d.Select(x => Math.Abs(x - md)).ToArray());
+        if (!(mad > 0)) return [];
+        var list = new List<Outlier>();
+        for (int i = 0; i < n; i++)
+        {
+            double z = (d[i] - md) / (1.4826 * mad);
+            if (z > 3.5) list.Add(new Outlier(_ids[i], d[i], z));
+        }
+        return list.OrderByDescending(o => o.RobustZ).ToArray();
+    }
+
+    private static double Median(double[] a)
+    {
+        Array.Sort(a);
+        int n = a.Length;
+        return n % 2 == 1 ? a[n / 2] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
+    }
+}

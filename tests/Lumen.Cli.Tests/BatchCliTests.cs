@@ -1,0 +1,107 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using Lumen.Cli;
+using Lumen.Spectra;
+
+namespace Lumen.Cli.Tests;
+
+/// <summary>End-to-end `lumen batch`: faults reported, nothing lost, summary, exit codes.</summary>
+public class BatchCliTests
+{
+    private static string Example(string f) => Path.Combine(CliTests.RepoRoot, "examples", f.EndsWith("3000K.csv", StringComparison.Ordinal) ? "" : "batch", f);
+
+    private static string TempDir()
+    {
+        var d = Path.Combine(Path.GetTempPath(), $"lumen-batch-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(d);
+        return d;
+    }
+
+    [Fact]
+    public void Faulty_lot_reports_every_fault_and_loses_no_record()
+    {
+        // examples/quillfern-dl30-lot-A17.csv: 240 units, faults injected at data rows 7, 19, 33, 58 (file lines
+        // 10, 22, 36, 61: text, NaN, empty cell, short row), lot B every tenth unit from unit 3 runs ~370 K cooler-white.
+        var dir = TempDir();
+        try
+        {
+            string results = Path.Combine(dir, "r.csv"), summary = Path.Combine(dir, "s.json");
+            var (code, _, stderr) = CliTests.Run("", "batch", Example("quillfern-dl30-lot-A17.csv"), "--spec", Example("spec-dl30.json"), "--out", results, "--summary", summary);
+            Assert.Equal(ExitCodes.UsageOrInputError, code);
+            foreach (var loc in new[] { ":10:23:", ":22:33:", ":36:43:", ":61:" }) Assert.Contains(loc, stderr, StringComparison.Ordinal);
+            var lines = File.ReadAllLines(results);
+            Assert.Equal(241, lines.Length);
+            Assert.Equal(4, lines.Count(l => l.Contains(",error,", StringComparison.Ordinal)));
+            for (int i = 1; i <= 240; i++) Assert.StartsWith($"DL30-{i:0000000},", lines[i], StringComparison.Ordinal);
+            using var doc = JsonDocument.Parse(File.ReadAllText(summary));
+            var s = doc.RootElement;
+            Assert.Equal(240, s.GetProperty("recordsRead").GetInt32());
+            Assert.Equal(s.GetProperty("recordsRead").GetInt32(), s.GetProperty("results").GetInt32() + s.GetProperty("errors").GetInt32());
+            Assert.Equal(4, s.GetProperty("errors").GetInt32());
+            // The shifted lot-B subgroup is what the robust outlier test finds (unit 33 is a fault row).
+            var outliers = s.GetProperty("outliers").EnumerateArray().Select(o => o.GetProperty("id").GetString()!).ToHashSet();
+            var lotB = Enumerable.Range(1, 240).Where(r => r % 10 == 3 && r != 33).Select(r => $"DL30-{r:0000000}").ToHashSet();
+            Assert.Subset(lotB, outliers);
+            Assert.Superset(lotB, outliers);
+            Assert.Contains("not a certification", s.GetProperty("caution").GetString(), StringComparison.Ordinal);
+            Assert.Equal(4, s.GetProperty("capability").GetArrayLength());
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+
+    [Fact]
+    public void Clean_passing_batch_exits_0_and_failing_exits_1()
+    {
+        var dir = TempDir();
+        try
+        {
+            var grid = SyntheticSpectra.Grid(380, 780, 5);
+            var sb = new StringBuilder("id," + string.Join(",", grid.Select(g => g.ToString(CultureInfo.InvariantCulture))) + "\n");
+            for (int i = 0; i < 12; i++)
+            {
+                var bb = SyntheticSpectra.Blackbody(2900 + i, grid, "b");
+                sb.Append("BB" + i.ToString(CultureInfo.InvariantCulture) + "," + string.Join(",", bb.Values.ToArray().Select(v => v.ToString("R", CultureInfo.InvariantCulture)))).Append('\n');
+            }
+            var sub = Path.Combine(dir, "sub");
+            Directory.CreateDirectory(sub);
+            File.WriteAllText(Path.Combine(sub, "bb.csv"), sb.ToString());
+            File.WriteAllText(Path.Combine(dir, "pass.json"), """{"name": "bb", "target": {"cct": 2905, "duv": 0}, "chromaticity": {"duvRadius": 0.003}, "limits": [{"field": "cri.ra", "min": 95}]}""");
+            File.WriteAllText(Path.Combine(dir, "fail.json"), """{"name": "bb", "target": {"nominalCct": 4000}, "chromaticity": {"quadrangle": true}}""");
+            var (ok, stdout, _) = CliTests.Run("", "batch", dir, "--spec", Path.Combine(dir, "pass.json"));
+            Assert.Equal(ExitCodes.Success, ok);
+            Assert.Equal(13, stdout.Trim().Split('\n').Length);
+            var (bad, _, _) = CliTests.Run("", "batch", dir, "--spec", Path.Combine(dir, "fail.json"), "--out", Path.Combine(dir, "r.json"));
+            Assert.Equal(ExitCodes.SpecificationFailed, bad);
+            using var doc = JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "r.json")));
+            Assert.Equal(12, doc.RootElement.GetArrayLength());
+            Assert.Equal("fail", doc.RootElement[0].GetProperty("status").GetString());
+            Assert.Contains("quadrangle", doc.RootElement[0].GetProperty("verdict").GetProperty("criteria")[0].GetProperty("criterion").GetString(), StringComparison.Ordinal);
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+
+    [Fact]
+    public void Bad_spec_exits_2_naming_the_line()
+    {
+        var dir = TempDir();
+        try
+        {
+            File.WriteAllText(Path.Combine(dir, "s.json"), "{\n \"limits\": [\n  {\"field\": \"cri.rx\", \"min\": 1}\n ]\n}");
+            var (code, _, stderr) = CliTests.Run("", "batch", Example("quillfern-downlights-3000K.csv"), "--spec", Path.Combine(dir, "s.json"));
+            Assert.Equal(2, code);
+            Assert.Contains("s.json:3:", stderr, StringComparison.Ordinal);
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+
+    [Fact]
+    public void Column_layout_files_work_in_a_batch_too()
+    {
+        var (code, stdout, _) = CliTests.Run("", "batch", Example("quillfern-downlights-3000K.csv"), "--spec", Example("spec-dl30.json"));
+        Assert.Equal(ExitCodes.SpecificationFailed, code); // DL-30-005 drifted (examples/README.md)
+        var rows = stdout.Trim().Split('\n');
+        Assert.Equal(7, rows.Length);
+        Assert.Contains(rows, r => r.StartsWith("DL-30-005,", StringComparison.Ordinal) && r.Contains(",fail,", StringComparison.Ordinal));
+    }
+}

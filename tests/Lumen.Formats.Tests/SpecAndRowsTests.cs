@@ -1,0 +1,158 @@
+using System.Text;
+using System.Text.Json;
+using Lumen.Assessment;
+using Lumen.Cie;
+using Lumen.Conformance;
+
+namespace Lumen.Formats.Tests;
+
+public class SpecReaderTests
+{
+    private static ToleranceSpec? Read(string json, out IReadOnlyList<ReadDiagnostic> errors) =>
+        SpecReader.Read(Encoding.UTF8.GetBytes(json), "spec.json", out errors);
+
+    [Fact]
+    public void Example_spec_in_the_issue_shape_reads()
+    {
+        var spec = Read("""
+            {"name": "DL", "target": {"nominalCct": 3000}, "chromaticity": {"ellipseSteps": 3},
+             "limits": [{"field": "cri.ra", "min": 90}, {"field": "cri.r[8]", "min": 50}, {"field": "cct.duv", "max": 0.006}]}
+            """, out var errors);
+        Assert.Empty(errors);
+        Assert.Equal(TargetKind.NominalCct, spec!.Target!.Kind);
+        Assert.Equal(ToleranceKind.EllipseSteps, spec.Tolerance.Kind);
+        Assert.Equal(3, spec.Limits.Count);
+        Assert.Equal(2, spec.Limits[0].Line);
+    }
+
+    [Theory]
+    [InlineData("""{"target": {"x": 0.4338, "y": 0.4030}, "chromaticity": {"duvRadius": 0.003}}""", ToleranceKind.UPrimeVPrimeRadius)]
+    [InlineData("""{"target": {"cct": 3000, "duv": 0.0}, "chromaticity": {"ellipseSteps": 5}}""", ToleranceKind.EllipseSteps)]
+    [InlineData("""{"target": {"nominalCct": 4000, "edition": "2008"}, "chromaticity": {"quadrangle": true}}""", ToleranceKind.Quadrangle)]
+    public void Every_target_and_tolerance_form_reads(string json, ToleranceKind kind)
+    {
+        var spec = Read(json, out var errors);
+        Assert.Empty(errors);
+        Assert.Equal(kind, spec!.Tolerance.Kind);
+    }
+
+    [Fact]
+    public void Unknown_field_is_rejected_naming_its_line()
+    {
+        Read("{\n  \"name\": \"x\",\n  \"limits\": [\n    {\"field\": \"cri.ra\", \"min\": 80},\n    {\"field\": \"cri.sparkle\", \"min\": 1}\n  ]\n}", out var errors);
+        var e = Assert.Single(errors);
+        Assert.Equal(5, e.Line);
+        Assert.Contains("unknown field 'cri.sparkle'", e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Impossible_limit_is_rejected_naming_its_line()
+    {
+        Read("{\n\"limits\": [\n {\"field\": \"cri.ra\", \"min\": 90, \"max\": 80}\n]}", out var errors);
+        var e = Assert.Single(errors);
+        Assert.Equal(3, e.Line);
+        Assert.Contains("impossible", e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Unknown_top_level_key_quadrangle_without_category_and_bad_json_are_errors()
+    {
+        Read("{\"nmae\": \"typo\"}", out var e1);
+        Assert.Contains("unknown field 'nmae'", Assert.Single(e1).Message, StringComparison.Ordinal);
+        Read("{\"target\": {\"x\": 0.4, \"y\": 0.4}, \"chromaticity\": {\"quadrangle\": true}}", out var e2);
+        Assert.Contains("nominalCct", Assert.Single(e2).Message, StringComparison.Ordinal);
+        Read("{\n\"name\": \"x\",,\n}", out var e3);
+        Assert.Equal(2, Assert.Single(e3).Line);
+        Read("{\"target\": {\"nominalCct\": 3333}}", out var e4);
+        Assert.Contains("no ANSI C78.377 category", Assert.Single(e4).Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Bundled_example_spec_reads()
+    {
+        var root = new DirectoryInfo(AppContext.BaseDirectory);
+        while (!File.Exists(Path.Combine(root.FullName, "Lumen.sln"))) root = root.Parent!;
+        var spec = SpecReader.ReadFile(Path.Combine(root.FullName, "examples", "batch", "spec-dl30.json"), out var errors);
+        Assert.Empty(errors);
+        Assert.Equal(4, spec!.Limits.Count);
+    }
+}
+
+public class AssessmentFieldTests
+{
+    [Fact]
+    public void Every_field_path_exists_in_the_analyze_JSON_with_the_same_value()
+    {
+        var s = CieTables.Load("illuminants_FL_5nm").ToSpectrum("FL2").WithUnit(Lumen.Spectra.SpectralUnit.IrradianceWattsPerSquareMetreNm);
+        var a = Assessor.Assess(s);
+        var sw = new StringWriter();
+        ResultWriters.WriteJson([new AnalysisItem(new SpectrumRecord("t", 2, "FL2", s, null), a)], sw);
+        using var doc = JsonDocument.Parse(sw.ToString());
+        var root = doc.RootElement[0];
+        int checkedCount = 0;
+        foreach (var path in AssessmentFields.Paths)
+        {
+            double? expected = AssessmentFields.Get(a, path);
+            var el = Navigate(root, path);
+            if (expected is null) { Assert.True(el is null || el.Value.ValueKind == JsonValueKind.Null, path); continue; }
+            Assert.True(el is not null, $"{path} missing from JSON");
+            Assert.Equal(expected.Value, el!.Value.GetDouble(), 9);
+            checkedCount++;
+        }
+        Assert.True(checkedCount > 150);
+    }
+
+    private static JsonElement? Navigate(JsonElement e, string path)
+    {
+        foreach (var part in path.Split('.'))
+        {
+            string name = part; int? index = null;
+            int b = part.IndexOf('[', StringComparison.Ordinal);
+            if (b >= 0) { name = part[..b]; index = int.Parse(part[(b + 1)..^1], System.Globalization.CultureInfo.InvariantCulture); }
+            if (!e.TryGetProperty(name, out var next)) return null;
+            e = index is { } i ? next[i] : next;
+        }
+        return e;
+    }
+}
+
+public class RowReaderTests
+{
+    private static string Header(string ids) => ids + string.Join(",", Enumerable.Range(0, 81).Select(i => 380 + 5 * i));
+
+    private static string Row(string ids, Func<int, string>? cell = null) =>
+        ids + string.Join(",", Enumerable.Range(0, 81).Select(i => cell?.Invoke(i) ?? "1"));
+
+    [Fact]
+    public void Layout_is_detected_from_the_first_row()
+    {
+        Assert.Equal(TableLayout.Rows, RowSpectrumReader.DetectLayout(Header("id,lot,")));
+        Assert.Equal(TableLayout.Rows, RowSpectrumReader.DetectLayout(Header("")));
+        Assert.Equal(TableLayout.Columns, RowSpectrumReader.DetectLayout("wavelength_nm,a,b"));
+        Assert.Equal(TableLayout.Columns, RowSpectrumReader.DetectLayout("380,0.1,0.2"));
+    }
+
+    [Fact]
+    public void Every_row_becomes_one_record_with_id_and_line_or_an_error()
+    {
+        var text = "# unit: W/m2/nm\n" + Header("id,lot,") + "\n" + Row("U1,A,") + "\n" + Row("U2,A,", i => i == 5 ? "x" : "1") + "\n"
+            + Row("U3,B,") + ",9\n" + Row("U4,A,", i => i == 7 ? "NaN" : "1") + "\n" + Row("U5,A,") + "\n";
+        var recs = RowSpectrumReader.Read(new StringReader(text), "rows.csv", "rows").ToList();
+        Assert.Equal(5, recs.Count);
+        Assert.Equal(["U1", "U2", "U3", "U4", "U5"], recs.Select(r => r.Name));
+        Assert.True(recs[0].IsOk);
+        Assert.Equal(3, recs[0].Line);
+        Assert.Equal(Lumen.Spectra.SpectralUnit.IrradianceWattsPerSquareMetreNm, recs[0].Spectrum!.Unit);
+        Assert.Equal((4, 8), (recs[1].Error!.Line, recs[1].Error!.Column));
+        Assert.Contains("ragged", recs[2].Error!.Message, StringComparison.Ordinal);
+        Assert.Equal((6, 10), (recs[3].Error!.Line, recs[3].Error!.Column));
+        Assert.True(recs[4].IsOk);
+    }
+
+    [Fact]
+    public void Header_without_wavelengths_is_one_error()
+    {
+        var recs = RowSpectrumReader.Read(new StringReader("id,a,b\n1,2,3\n"), "x.csv", "x").ToList();
+        Assert.Contains("wavelength header", Assert.Single(recs).Error!.Message, StringComparison.Ordinal);
+    }
+}
