@@ -100,7 +100,7 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
     /// <summary>Reads, assesses and judges every record, writing rows in input order; memory stays flat.</summary>
     internal BatchSummary Run(IReadOnlyList<string> files, string layout, SpectralUnit? unit, ToleranceSpec spec, BatchWriter writer, int threads)
     {
-        var options = AssessmentOptions.Default;
+        var options = new AssessmentOptions(Metrics: MetricsFor(spec));
         var prepared = SpecEvaluator.Prepare(spec);
         var ellipse = prepared.Ellipse;
         var builder = new BatchSummaryBuilder(spec.Limits.Select(l => (l.Field, l.Min, l.Max)).ToArray(),
@@ -155,6 +155,23 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
         reader.GetAwaiter().GetResult();
         if (stderrIsTerminal) stderr.WriteLine();
         return builder.Build();
+    }
+
+    /// <summary>The result groups a batch needs: colorimetry, CIE 13.3 and CIE 224 (for the summary), and any group a limit names.</summary>
+    internal static MetricGroups MetricsFor(ToleranceSpec spec)
+    {
+        var m = MetricGroups.Colorimetry | MetricGroups.Cri | MetricGroups.Fidelity;
+        foreach (var l in spec.Limits)
+        {
+            m |= l.Field.Split('.')[0] switch
+            {
+                "photometry" => MetricGroups.Photometry,
+                "nonVisual" => MetricGroups.NonVisual,
+                "spectral" => MetricGroups.Spectral,
+                _ => MetricGroups.Colorimetry,
+            };
+        }
+        return m;
     }
 
     internal static BatchItem Judge(SpectrumRecord record, PreparedSpec spec, AssessmentOptions options)

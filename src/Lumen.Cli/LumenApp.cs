@@ -19,6 +19,8 @@ public static class LumenApp
         root.Subcommands.Add(new BlackbodyCommand(stdout, stderr).Build());
         root.Subcommands.Add(new FitCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new BatchCommand(stdout, stderr, stderrIsTerminal).Build());
+        root.Subcommands.Add(new PlotCommand(stdin, stdout, stderr).Build());
+        root.Subcommands.Add(new ReportCommand(stdin, stdout, stderr).Build());
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {

@@ -23,7 +23,8 @@ public readonly record struct HueBin(int Index, int SampleCount, double Rf, doub
 /// <param name="RfCes">Rf,i of the 99 colour evaluation samples (CES1 first).</param>
 /// <param name="HueBins">The 16 hue bins.</param>
 /// <param name="Reference">The reference illuminant.</param>
-public sealed record FidelityResult(double Rf, double Rg, IReadOnlyList<double> RfCes, IReadOnlyList<HueBin> HueBins, ReferenceIlluminant Reference);
+/// <param name="CesBins">Hue bin (1–16) of each CES under the reference, CES1 first.</param>
+public sealed record FidelityResult(double Rf, double Rg, IReadOnlyList<double> RfCes, IReadOnlyList<HueBin> HueBins, ReferenceIlluminant Reference, IReadOnlyList<int> CesBins);
 
 /// <summary>
 /// CIE 224:2017 colour fidelity index Rf with the IES TM-30-20 gamut index Rg and hue-bin values.
@@ -90,9 +91,11 @@ public static class FidelityIndex
         var bins = new HueBin[16];
         Span<double> sumTa = stackalloc double[16], sumTb = stackalloc double[16], sumRa = stackalloc double[16], sumRb = stackalloc double[16], sumDe = stackalloc double[16];
         Span<int> count = stackalloc int[16];
+        var cesBins = new int[SampleCount];
         for (int i = 0; i < SampleCount; i++)
         {
             int j = Math.Min(15, (int)Math.Floor(rH[i] / 22.5));
+            cesBins[i] = j + 1;
             count[j]++; sumTa[j] += tA[i]; sumTb[j] += tB[i]; sumRa[j] += rA[i]; sumRb[j] += rB[i]; sumDe[j] += de[i];
         }
         double areaT = 0, areaR = 0;
@@ -119,7 +122,7 @@ public static class FidelityIndex
             double rfh = count[j] == 0 ? double.NaN : ToScale(sumDe[j] / count[j]);
             bins[j] = new HueBin(j + 1, count[j], rfh, rcs, rhs, ra[j], rb[j], ta[j], tb[j]);
         }
-        return new FidelityResult(rf, rg, rfCes, bins, reference);
+        return new FidelityResult(rf, rg, rfCes, bins, reference, cesBins);
     }
 
     private static void Appearance(ReadOnlySpan<double> test, ReadOnlySpan<double> reference, SpectralWeights cmf, SpectralWeights w,
