@@ -19,15 +19,22 @@ public class ColorimetryBenchmarks
     [GlobalSetup]
     public void Setup()
     {
+        _samples = LedSet(BatchSize);
+        Run(); // warm the weight and locus caches
+    }
+
+    /// <summary>Seeded white-LED spectra, 1 nm 380–780 nm, on their CIE grid (shared by the benchmarks).</summary>
+    internal static RegularSamples[] LedSet(int count)
+    {
         var grid = SyntheticSpectra.Grid(380, 780, 1);
         var rng = new Random(42);
-        _samples = new RegularSamples[BatchSize];
-        for (int i = 0; i < BatchSize; i++)
+        var samples = new RegularSamples[count];
+        for (int i = 0; i < count; i++)
         {
             var m = new PhosphorLedModel(445 + 10 * rng.NextDouble(), 20, 0.5 + rng.NextDouble(), 550, 110, 625, 85, 0.3 + 0.6 * rng.NextDouble());
-            _samples[i] = Resampler.ForCieSums(SyntheticSpectra.PhosphorLed(m, grid, "b"));
+            samples[i] = Resampler.ForCieSums(SyntheticSpectra.PhosphorLed(m, grid, "b"));
         }
-        Run(); // warm the weight and locus caches
+        return samples;
     }
 
     [Benchmark(Description = "XYZ+CCT+Duv, 1000 spectra")]

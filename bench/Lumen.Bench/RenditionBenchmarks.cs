@@ -20,14 +20,7 @@ public class RenditionBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        var grid = SyntheticSpectra.Grid(380, 780, 1);
-        var rng = new Random(42);
-        _samples = new RegularSamples[BatchSize];
-        for (int i = 0; i < BatchSize; i++)
-        {
-            var m = new PhosphorLedModel(445 + 10 * rng.NextDouble(), 20, 0.5 + rng.NextDouble(), 550, 110, 625, 85, 0.3 + 0.6 * rng.NextDouble());
-            _samples[i] = Resampler.ForCieSums(SyntheticSpectra.PhosphorLed(m, grid, "b"));
-        }
+        _samples = ColorimetryBenchmarks.LedSet(BatchSize);
         AllRendition();
     }
 

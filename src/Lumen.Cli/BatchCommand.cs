@@ -48,15 +48,7 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
             if (!SpectralUnits.TryParse(ut, out var u)) { stderr.WriteLine($"lumen: --unit '{ut}' is not a unit."); return ExitCodes.UsageOrInputError; }
             unit = u;
         }
-        var files = new List<string>();
-        foreach (var input in parse.GetValue(Inputs) ?? [])
-        {
-            if (Directory.Exists(input))
-                files.AddRange(Directory.EnumerateFiles(input, "*", SearchOption.AllDirectories)
-                    .Where(f => f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".tsv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".txt", StringComparison.OrdinalIgnoreCase))
-                    .OrderBy(f => f, StringComparer.Ordinal));
-            else files.Add(input);
-        }
+        var files = SpectrumFiles.Expand(parse.GetValue(Inputs) ?? []);
         string layout = parse.GetValue(Layout)!;
         int threads = Math.Max(1, parse.GetValue(Threads));
 

@@ -47,13 +47,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
             return Fail($"--out '{outPath}' must end in .png or .svg.");
         int dw = 1200, dh = kind == "swatch" ? 520 : 900;
         if (!TryParseSize(parse.GetValue(Size), dw, dh, out int w, out int h)) return Fail("--size must be WIDTHxHEIGHT in pixels, 200x150 to 8000x8000 (e.g. 1200x900).");
-        PreparedSpec? spec = null;
-        if (parse.GetValue(Spec) is { } specPath)
-        {
-            var s = SpecReader.ReadFile(specPath, out var errors);
-            if (s is null) { foreach (var e in errors) stderr.WriteLine($"lumen: {e}"); return ExitCodes.UsageOrInputError; }
-            spec = SpecEvaluator.Prepare(s);
-        }
+        if (!SpecFile.TryLoad(parse.GetValue(Spec), stderr, out var spec)) return ExitCodes.UsageOrInputError;
         var items = new List<AnalysisItem>();
         foreach (var f in parse.GetValue(Files) ?? [])
             foreach (var r in SpectrumFiles.Read(f, null, stdin))
@@ -106,6 +100,26 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
     }
 }
 
+/// <summary>Loads an optional spec file for a command, reporting its errors.</summary>
+internal static class SpecFile
+{
+    /// <summary>Loads and prepares the spec at <paramref name="path"/> (none when null).</summary>
+    /// <returns>False when the file has errors (already written to <paramref name="stderr"/>).</returns>
+    public static bool TryLoad(string? path, TextWriter stderr, out PreparedSpec? spec)
+    {
+        spec = null;
+        if (path is null) return true;
+        var s = SpecReader.ReadFile(path, out var errors);
+        if (s is null)
+        {
+            foreach (var e in errors) stderr.WriteLine($"lumen: {e}");
+            return false;
+        }
+        spec = SpecEvaluator.Prepare(s);
+        return true;
+    }
+}
+
 /// <summary><c>lumen report INPUT... [--spec SPEC] --out report.html</c>: a self-contained HTML report.</summary>
 internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWriter stderr)
 {
@@ -122,22 +136,8 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
 
     private int Execute(ParseResult parse)
     {
-        PreparedSpec? spec = null;
-        if (parse.GetValue(Spec) is { } specPath)
-        {
-            var s = SpecReader.ReadFile(specPath, out var errors);
-            if (s is null) { foreach (var e in errors) stderr.WriteLine($"lumen: {e}"); return ExitCodes.UsageOrInputError; }
-            spec = SpecEvaluator.Prepare(s);
-        }
-        var files = new List<string>();
-        foreach (var input in parse.GetValue(Inputs) ?? [])
-        {
-            if (Directory.Exists(input))
-                files.AddRange(Directory.EnumerateFiles(input, "*", SearchOption.AllDirectories)
-                    .Where(f => f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".tsv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".txt", StringComparison.OrdinalIgnoreCase))
-                    .OrderBy(f => f, StringComparer.Ordinal));
-            else files.Add(input);
-        }
+        if (!SpecFile.TryLoad(parse.GetValue(Spec), stderr, out var spec)) return ExitCodes.UsageOrInputError;
+        var files = SpectrumFiles.Expand(parse.GetValue(Inputs) ?? []);
         var records = files.SelectMany(f => SpectrumFiles.Read(f, null, stdin)).ToList();
         foreach (var r in records.Where(r => r.Error is not null)) stderr.WriteLine($"lumen: {r.Error}");
         string html;

@@ -179,6 +179,24 @@ public static class DelimitedSpectrumReader
         }
     }
 
+    /// <summary>Recognises a <c># unit: …</c> comment.</summary>
+    /// <param name="comment">A trimmed line starting with '#'.</param>
+    /// <param name="unit">The unit, when recognised.</param>
+    /// <param name="error">A message when the directive names no known unit, else null.</param>
+    /// <returns>True when the comment is a unit directive.</returns>
+    public static bool UnitDirective(string comment, out SpectralUnit unit, out string? error)
+    {
+        ArgumentNullException.ThrowIfNull(comment);
+        unit = SpectralUnit.Relative;
+        error = null;
+        var directive = comment.TrimStart('#').Trim();
+        if (!directive.StartsWith("unit", StringComparison.OrdinalIgnoreCase) || !directive.Contains(':', StringComparison.Ordinal)) return false;
+        var text = directive[(directive.IndexOf(':', StringComparison.Ordinal) + 1)..].Trim();
+        if (!SpectralUnits.TryParse(text, out unit))
+            error = $"unknown unit '{text}'; expected relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm";
+        return true;
+    }
+
     private static SpectrumRecord FileError(string source, int line, int column, string message) =>
         new(source, 0, Path.GetFileName(source), null, new ReadDiagnostic(source, line, column, message));
 

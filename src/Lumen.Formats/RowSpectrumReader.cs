@@ -45,6 +45,24 @@ public static class SpectrumFiles
         foreach (var r in RowSpectrumReader.Read(reader, path, Path.GetFileNameWithoutExtension(path), unit)) yield return r;
     }
 
+    /// <summary>Expands inputs: a folder becomes its .csv, .tsv and .txt files (recursively, in ordinal order); a file stays.</summary>
+    /// <param name="inputs">Files or folders.</param>
+    /// <returns>Files.</returns>
+    public static IReadOnlyList<string> Expand(IEnumerable<string> inputs)
+    {
+        ArgumentNullException.ThrowIfNull(inputs);
+        var files = new List<string>();
+        foreach (var input in inputs)
+        {
+            if (Directory.Exists(input))
+                files.AddRange(Directory.EnumerateFiles(input, "*", SearchOption.AllDirectories)
+                    .Where(f => f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".tsv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".txt", StringComparison.OrdinalIgnoreCase))
+                    .OrderBy(f => f, StringComparer.Ordinal));
+            else files.Add(input);
+        }
+        return files;
+    }
+
     /// <summary>Detects the layout from the first non-comment row of a text.</summary>
     /// <param name="reader">The text (consumed up to that row).</param>
     /// <returns>The layout (columns when the text is empty).</returns>
@@ -130,10 +148,15 @@ public static class RowSpectrumReader
             if (t.Length == 0) continue;
             if (t[0] == '#')
             {
-                var directive = t.TrimStart('#').Trim();
-                if (directive.StartsWith("unit", StringComparison.OrdinalIgnoreCase) && directive.Contains(':', StringComparison.Ordinal)
-                    && SpectralUnits.TryParse(directive[(directive.IndexOf(':', StringComparison.Ordinal) + 1)..], out var u))
+                if (DelimitedSpectrumReader.UnitDirective(t, out var u, out var bad))
+                {
+                    if (bad is not null)
+                    {
+                        yield return new SpectrumRecord(source, 0, Path.GetFileName(source), null, new ReadDiagnostic(source, lineNo, 1, bad));
+                        yield break;
+                    }
                     declared ??= u;
+                }
                 continue;
             }
             if (wavelengths is null)

@@ -192,8 +192,10 @@ public sealed class BatchSummaryBuilder
         int n = _u.Count;
         if (n < 2) return 0;
         // Convex hull (monotone chain), then the largest distance between hull vertices.
-        var pts = Enumerable.Range(0, n).Select(i => ((double)_u[i], (double)_v[i])).Distinct().OrderBy(p => p.Item1).ThenBy(p => p.Item2).ToArray();
-        if (pts.Length < 2) return 0;
+        // One array of n points sorted in place (no hashing or LINQ buffers: this runs on millions of units).
+        var pts = new (double, double)[n];
+        for (int i = 0; i < n; i++) pts[i] = (_u[i], _v[i]);
+        Array.Sort(pts);
         static double Cross((double, double) o, (double, double) a, (double, double) b) => (a.Item1 - o.Item1) * (b.Item2 - o.Item2) - (a.Item2 - o.Item2) * (b.Item1 - o.Item1);
         var hull = new List<(double, double)>();
         foreach (var p in pts) { while (hull.Count >= 2 && Cross(hull[^2], hull[^1], p) <= 0) hull.RemoveAt(hull.Count - 1); hull.Add(p); }
@@ -213,11 +215,17 @@ public sealed class BatchSummaryBuilder
     {
         int n = _u.Count;
         if (n < 5) return [];
-        double mu = Median(_u.Select(x => (double)x).ToArray()), mv = Median(_v.Select(x => (double)x).ToArray());
+        var work = new double[n];
+        for (int i = 0; i < n; i++) work[i] = _u[i];
+        double mu = Median(work);
+        for (int i = 0; i < n; i++) work[i] = _v[i];
+        double mv = Median(work);
         var d = new double[n];
         for (int i = 0; i < n; i++) { double du = _u[i] - mu, dv = _v[i] - mv; d[i] = Math.Sqrt(du * du + dv * dv); }
-        double md = Median((double[])d.Clone());
-        double mad = Median(d.Select(x => Math.Abs(x - md)).ToArray());
+        d.CopyTo(work, 0);
+        double md = Median(work);
+        for (int i = 0; i < n; i++) work[i] = Math.Abs(d[i] - md);
+        double mad = Median(work);
         if (!(mad > 0)) return [];
         var list = new List<Outlier>();
         for (int i = 0; i < n; i++)
