@@ -11,7 +11,7 @@ namespace Lumen.Cli;
 internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWriter stderr)
 {
     public Argument<string> Kind { get; } = new("kind") { Description = "swatch, locus, spectrum or vector." };
-    public Argument<string[]> Files { get; } = new("files") { Description = "Spectrum files ('-' for standard input).", Arity = ArgumentArity.OneOrMore };
+    public Argument<string[]> Files { get; } = new("files") { Description = "Spectrum files or folders ('-' for standard input).", Arity = ArgumentArity.OneOrMore };
     public Option<string> Out { get; } = new("--out", "-o") { Description = "Image file: .png or .svg.", Required = true };
     public Option<string?> Size { get; } = new("--size") { Description = "Width×height in pixels, e.g. 1200x900." };
     public Option<string> Space { get; } = new("--space") { Description = "Diagram for locus: xy (CIE 1931) or uv (CIE 1976 u'v').", DefaultValueFactory = _ => "xy" };
@@ -49,7 +49,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         if (!TryParseSize(parse.GetValue(Size), dw, dh, out int w, out int h)) return Fail("--size must be WIDTHxHEIGHT in pixels, 200x150 to 8000x8000 (e.g. 1200x900).");
         if (!SpecFile.TryLoad(parse.GetValue(Spec), stderr, out var spec)) return ExitCodes.UsageOrInputError;
         var items = new List<AnalysisItem>();
-        foreach (var f in parse.GetValue(Files) ?? [])
+        foreach (var f in SpectrumFiles.Expand(parse.GetValue(Files) ?? []))
             foreach (var r in SpectrumFiles.Read(f, null, stdin))
             {
                 if (r.Error is not null) stderr.WriteLine($"lumen: {r.Error}");

@@ -126,7 +126,7 @@ public static class SwatchPlot
     {
         ArgumentNullException.ThrowIfNull(canvas);
         ArgumentNullException.ThrowIfNull(spectrum);
-        float s = Style.Scale(size);
+        float s = Math.Max(0.5f, Math.Min(size.Width / 1200f, size.Height / 480f));
         Style.Text(canvas, $"Colour samples — {spectrum.Name}", 30 * s, 36 * s, 20 * s, Style.Ink, bold: true);
         Style.Text(canvas, "Each pair: top = under the test light, bottom = under the reference. sRGB display, samples adapted to D65 (Bradford), 2° observer.", 30 * s, 58 * s, 12.5f * s, Style.Muted);
         var own = chromaticity2Degree.IsDefined ? Srgb.LightColour(chromaticity2Degree) : new Rgb8(128, 128, 128, false);
