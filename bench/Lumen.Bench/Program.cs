@@ -28,7 +28,7 @@ public static class Program
         {
             "# Lumen throughput (written by bench/Lumen.Bench)",
             "",
-            $"Run: {DateTime.UtcNow:yyyy-MM-dd HH:mm} UTC, {Environment.ProcessorCount} logical cores, single-threaded benchmarks.",
+            $"Run: {DateTime.UtcNow:yyyy-MM-dd HH:mm} UTC, {Environment.ProcessorCount} logical cores; single-threaded except `lumen batch end to end`, which uses all cores.",
             "Machines are noisy: compare ratios within one run, not absolute figures across runs.",
             "",
             "| benchmark | mean per operation | spectra per operation | spectra per second (one core) |",

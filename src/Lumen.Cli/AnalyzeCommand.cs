@@ -37,6 +37,12 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         Description = "Unit of the values when the file does not say: relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.",
     };
 
+    public Option<string> C2Option { get; } = new("--c2")
+    {
+        Description = "Second radiation constant for the Planckian locus: cie15 (1.4388e-2 m·K, default) or codata (CODATA 2018, CCT +16 ppm lower).",
+        DefaultValueFactory = _ => "cie15",
+    };
+
     public Option<string> MetricsOption { get; } = new("--metrics")
     {
         Description = "Result groups, comma-separated: colorimetry, cri, fidelity (tm30), photometry, nonvisual, spectral, all. Default: all.",
@@ -69,9 +75,10 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
     {
         ObserverOption.AcceptOnlyFromAmong("2", "10");
         FormatOption.AcceptOnlyFromAmong("text", "json", "csv");
+        C2Option.AcceptOnlyFromAmong("cie15", "codata");
         var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT, Duv and colour rendition (Ra, R1–R14, Rf, Rg) of every spectrum in the files.")
         {
-            Files, ObserverOption, FormatOption, OutputOption, UnitOption, MetricsOption,
+            Files, ObserverOption, FormatOption, OutputOption, UnitOption, MetricsOption, C2Option,
         };
         cmd.SetAction(Execute);
         return cmd;
@@ -97,7 +104,8 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
             stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity, photometry, nonvisual, spectral or all.");
             return ExitCodes.UsageOrInputError;
         }
-        var options = new AssessmentOptions(observer, Metrics: metrics);
+        var c2 = parse.GetValue(C2Option) == "codata" ? Lumen.Blackbody.C2Convention.Codata2018 : Lumen.Blackbody.C2Convention.Cie15Its90;
+        var options = new AssessmentOptions(observer, new Lumen.Temperature.CctOptions(C2: c2), metrics);
         var items = new List<AnalysisItem>();
         foreach (var file in parse.GetValue(Files) ?? [])
         {

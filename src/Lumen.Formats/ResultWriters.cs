@@ -89,6 +89,12 @@ public static class ResultWriters
         w.WriteStartObject("tristimulus");
         Num(w, "X", a.Tristimulus.X); Num(w, "Y", a.Tristimulus.Y); Num(w, "Z", a.Tristimulus.Z);
         w.WriteEndObject();
+        if (a.AbsoluteTristimulus is { } abs)
+        {
+            w.WriteStartObject("tristimulusAbsolute");
+            Num(w, "X", abs.X); Num(w, "Y", abs.Y); Num(w, "Z", abs.Z);
+            w.WriteEndObject();
+        }
         w.WriteStartObject("chromaticity");
         Num(w, "x", a.Chromaticity.X); Num(w, "y", a.Chromaticity.Y);
         Num(w, "u", a.Chromaticity.U); Num(w, "v", a.Chromaticity.V);

@@ -26,6 +26,27 @@ public class ToolkitCliTests
     }
 
     [Fact]
+    public void C2_option_changes_the_cct_by_16_ppm_and_states_it()
+    {
+        // Source: methods note planck.md §2.2: CCT(c2 = 1.4388e-2) / CCT(CODATA) = 1.0000161.
+        var file = Path.Combine(CliTests.RepoRoot, "examples", "marrowby-stage-halogen.csv");
+        using var a = JsonDocument.Parse(CliTests.Run("", "analyze", "--format", "json", file).Out);
+        using var b = JsonDocument.Parse(CliTests.Run("", "analyze", "--format", "json", "--c2", "codata", file).Out);
+        double ta = a.RootElement[0].GetProperty("cct").GetProperty("kelvin").GetDouble(), tb = b.RootElement[0].GetProperty("cct").GetProperty("kelvin").GetDouble();
+        Assert.Equal(1.0000161, ta / tb, 7);
+        Assert.InRange(b.RootElement[0].GetProperty("provenance").GetProperty("c2MetreKelvin").GetDouble(), 0.014387768765, 0.014387768775 + 1e-11); // CODATA 2018: 1.438776877e-2 m·K
+    }
+
+    [Fact]
+    public void Absolute_file_reports_absolute_tristimulus_values()
+    {
+        using var doc = JsonDocument.Parse(CliTests.Run("", "analyze", "--format", "json", Path.Combine(CliTests.RepoRoot, "examples", "foyer-panel-4000K.tsv")).Out);
+        var a = doc.RootElement[0];
+        // Y (2°) with k = K_m equals the illuminance in lux (CIE 15, CIE 018).
+        Assert.Equal(a.GetProperty("photometry").GetProperty("illuminanceLux").GetDouble(), a.GetProperty("tristimulusAbsolute").GetProperty("Y").GetDouble(), 6);
+    }
+
+    [Fact]
     public void Unit_option_makes_a_relative_file_absolute()
     {
         var (code, stdout, _) = CliTests.Run("", "analyze", "--format", "json", "--unit", "W/sr/m2/nm", Path.Combine(CliTests.RepoRoot, "examples", "marrowby-stage-halogen.csv"));

@@ -77,6 +77,7 @@ public sealed record Provenance(
 /// <param name="Unit">Unit of the input values.</param>
 /// <param name="Observer">Observer of <see cref="Tristimulus"/> and <see cref="Chromaticity"/>.</param>
 /// <param name="Tristimulus">Relative tristimulus values, Y = 100.</param>
+/// <param name="AbsoluteTristimulus">Absolute tristimulus values (k = K_m = 683.002 lm/W; Y in lx, cd/m², cd or lm as the unit gives) when the unit is absolute; else null.</param>
 /// <param name="Chromaticity">Chromaticity for <see cref="Observer"/>.</param>
 /// <param name="Chromaticity2Degree">CIE 1931 2° chromaticity (what CCT and Duv use).</param>
 /// <param name="Cct">CCT and Duv.</param>
@@ -93,6 +94,7 @@ public sealed record Assessment(
     SpectralUnit Unit,
     Observer Observer,
     Tristimulus Tristimulus,
+    Tristimulus? AbsoluteTristimulus,
     Chromaticity Chromaticity,
     Chromaticity Chromaticity2Degree,
     CctResult Cct,
@@ -179,7 +181,10 @@ public static class Assessor
             ["CIE 015:2018 (colorimetry)", "ISO/CIE 11664-1:2019 (observers)", "ANSI C78.377 (Duv sign)", "CIE 13.3-1995 (Ra, Ri)", "CIE 224:2017 (Rf)", "ANSI/IES TM-30-20 (Rg, hue bins)", "CIE 018:2019 (photometry)", "CIE S 026:2018 (α-opic)"],
             PlanckConstants.For(cctOpt.C2).C2,
             spectrum.FirstNm, spectrum.LastNm, samples.StartNm, samples.EndNm, samples.StepNm, samples.Method, spectrum.NegativeSampleCount);
-        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, chroma, chroma2, cct, cri, fidelity,
+        Tristimulus? absolute = spectrum.Unit.IsAbsolute()
+            ? new Tristimulus(Colorimeter.KmLumensPerWatt * rawObs.X, Colorimeter.KmLumensPerWatt * rawObs.Y, Colorimeter.KmLumensPerWatt * rawObs.Z)
+            : null;
+        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, absolute, chroma, chroma2, cct, cri, fidelity,
             photometry, nonVisual, spectral, warnings, provenance);
     }
 
