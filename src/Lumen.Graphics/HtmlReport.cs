@@ -273,7 +273,7 @@ public static class Histogram
     {
         ArgumentNullException.ThrowIfNull(canvas);
         ArgumentNullException.ThrowIfNull(values);
-        float s = Style.Scale(size) * 1.2f;
+        float s = Math.Max(0.8f, Math.Min(size.Width / 700f, size.Height / 440f));
         Style.Text(canvas, title, 20 * s, 30 * s, 16 * s, Style.Ink, bold: true);
         if (values.Count == 0) { Style.Text(canvas, "no values", 20 * s, 60 * s, 13 * s, Style.Muted); return; }
         double min = values.Min(), max = values.Max();
@@ -282,7 +282,7 @@ public static class Histogram
         var counts = new int[nb];
         foreach (var v in values) counts[Math.Min(nb - 1, (int)((v - min) / (max - min) * nb))]++;
         var m = new AxisMapping(new SkiaSharp.SKRect(80 * s, 45 * s, size.Width - 20 * s, size.Height - 60 * s), min, max, 0, counts.Max() * 1.1);
-        m.DrawAxes(canvas, title, "count", s * 0.8f, "G5", "0");
+        m.DrawAxes(canvas, title, "count", s, "G5", "0");
         using var fill = Style.Fill(Style.Pass);
         for (int i = 0; i < nb; i++)
         {
