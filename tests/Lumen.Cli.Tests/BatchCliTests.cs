@@ -105,3 +105,33 @@ public class BatchCliTests
         Assert.Contains(rows, r => r.StartsWith("DL-30-005,", StringComparison.Ordinal) && r.Contains(",fail,", StringComparison.Ordinal));
     }
 }
+
+/// <summary>Property: the parallel batch gives exactly the one-by-one results, in input order.</summary>
+public class BatchEqualsOneByOneTests
+{
+    [Fact]
+    public void Batch_rows_equal_individual_assessments()
+    {
+        string lot = Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv");
+        string dir = Path.Combine(Path.GetTempPath(), $"lumen-eq-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(dir);
+        try
+        {
+            string results = Path.Combine(dir, "r.json");
+            CliTests.Run("", "batch", lot, "--spec", Path.Combine(CliTests.RepoRoot, "examples", "batch", "spec-dl30.json"), "--out", results, "--threads", "2");
+            using var doc = JsonDocument.Parse(File.ReadAllText(results));
+            var records = Lumen.Formats.SpectrumFiles.Read(lot).ToList();
+            Assert.Equal(records.Count, doc.RootElement.GetArrayLength());
+            for (int i = 0; i < records.Count; i++)
+            {
+                var row = doc.RootElement[i];
+                Assert.Equal(records[i].Name, row.GetProperty("id").GetString());
+                if (records[i].Spectrum is null) { Assert.Equal("error", row.GetProperty("status").GetString()); continue; }
+                var a = Lumen.Assessment.Assessor.Assess(records[i].Spectrum!);
+                Assert.Equal(a.Cct.CctKelvin, row.GetProperty("result").GetProperty("cctKelvin").GetDouble());
+                Assert.Equal(a.Cri!.Ra, row.GetProperty("result").GetProperty("ra").GetDouble());
+            }
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+}
