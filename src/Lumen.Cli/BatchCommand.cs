@@ -64,11 +64,19 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
             return ExitCodes.UsageOrInputError;
         }
         BatchSummary summary;
-        using (outFile)
-        using (var writer = BatchWriter.Create(outFile ?? stdout, outPath?.EndsWith(".json", StringComparison.OrdinalIgnoreCase) == true, spec))
+        try
         {
-            summary = Run(files, layout, unit, spec, writer, threads);
-            writer.Complete();
+            using (outFile)
+            using (var writer = BatchWriter.Create(outFile ?? stdout, outPath?.EndsWith(".json", StringComparison.OrdinalIgnoreCase) == true, spec))
+            {
+                summary = Run(files, layout, unit, spec, writer, threads);
+                writer.Complete();
+            }
+        }
+        catch (IOException ex)
+        {
+            stderr.WriteLine($"lumen: {ex.Message}");
+            return ExitCodes.UsageOrInputError;
         }
 
         string? summaryPath = parse.GetValue(Summary);
@@ -97,38 +105,15 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
         var ellipse = prepared.Ellipse;
         var builder = new BatchSummaryBuilder(spec.Limits.Select(l => (l.Field, l.Min, l.Max)).ToArray(),
             ellipse is null ? null : (x1, y1, x2, y2) => ellipse.MovedTo(x2, y2).Steps(x1, y1));
-        var results = new BatchItem[ChunkSize];
         var clock = Stopwatch.StartNew();
         long done = 0;
         var po = new ParallelOptions { MaxDegreeOfParallelism = threads };
 
-        void Flush(List<SpectrumRecord> chunk)
-        {
-            int n = chunk.Count;
-            Parallel.For(0, n, po, i => results[i] = Judge(chunk[i], prepared, options));
-            for (int i = 0; i < n; i++)
-            {
-                var item = results[i];
-                writer.Write(item);
-                if (item.Result is { } a && item.Verdict is { } v)
-                    builder.AddResult(item.Record.Name, a.Chromaticity2Degree, v.Pass, p => AssessmentFields.Get(a, p), v.StepsFromTarget);
-                else
-                {
-                    builder.AddError();
-                    stderr.WriteLine($"lumen: {item.Record.Error}");
-                }
-                results[i] = null!;
-            }
-            done += n;
-            if (stderrIsTerminal)
-            {
-                double rate = done / Math.Max(1e-9, clock.Elapsed.TotalSeconds);
-                stderr.Write(string.Create(CultureInfo.InvariantCulture, $"\r{done:N0} records, {rate:N0}/s, {clock.Elapsed:mm\\:ss} elapsed   "));
-            }
-        }
-
-        // Reading overlaps computing: a reader task fills chunks ahead (at most 4 in flight, so memory stays flat).
-        using var queue = new System.Collections.Concurrent.BlockingCollection<List<SpectrumRecord>>(4);
+        // Three stages: a reader task fills chunks ahead, this thread computes each chunk in parallel, and a
+        // writer task writes rows and feeds the summary in input order. Queues are bounded (a few chunks in
+        // flight), so memory stays flat; writing overlaps computing of the next chunk.
+        using var toCompute = new System.Collections.Concurrent.BlockingCollection<List<SpectrumRecord>>(4);
+        using var toWrite = new System.Collections.Concurrent.BlockingCollection<BatchItem[]>(2);
         var reader = Task.Run(() =>
         {
             try
@@ -137,14 +122,56 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
                 foreach (var record in Records(files, layout, unit))
                 {
                     chunk.Add(record);
-                    if (chunk.Count == ChunkSize) { queue.Add(chunk); chunk = new List<SpectrumRecord>(ChunkSize); }
+                    if (chunk.Count == ChunkSize) { toCompute.Add(chunk); chunk = new List<SpectrumRecord>(ChunkSize); }
                 }
-                if (chunk.Count > 0) queue.Add(chunk);
+                if (chunk.Count > 0) toCompute.Add(chunk);
             }
-            finally { queue.CompleteAdding(); }
+            finally { toCompute.CompleteAdding(); }
         });
-        foreach (var chunk in queue.GetConsumingEnumerable()) Flush(chunk);
+        void WriteChunk(BatchItem[] items)
+        {
+            foreach (var item in items)
+            {
+                writer.Write(item);
+                if (item.Result is { } a && item.Verdict is { } v)
+                    builder.AddResult(item.Record.Name, a.Chromaticity2Degree, v.Pass, p => AssessmentFields.Get(a, p), v.StepsFromTarget);
+                else
+                {
+                    builder.AddError();
+                    stderr.WriteLine($"lumen: {item.Record.Error}");
+                }
+            }
+            done += items.Length;
+            if (stderrIsTerminal)
+            {
+                double rate = done / Math.Max(1e-9, clock.Elapsed.TotalSeconds);
+                stderr.Write(string.Create(CultureInfo.InvariantCulture, $"\r{done:N0} records, {rate:N0}/s, {clock.Elapsed:mm\\:ss} elapsed   "));
+            }
+        }
+
+        Exception? writeFailure = null;
+        var writerTask = Task.Run(() =>
+        {
+            foreach (var items in toWrite.GetConsumingEnumerable())
+            {
+                if (writeFailure is not null) continue; // keep draining so the computing stage never blocks
+                try { WriteChunk(items); }
+                catch (Exception ex) when (ex is IOException or UnauthorizedAccessException) { writeFailure = ex; }
+            }
+        });
+        try
+        {
+            foreach (var chunk in toCompute.GetConsumingEnumerable())
+            {
+                var results = new BatchItem[chunk.Count];
+                Parallel.For(0, chunk.Count, po, i => results[i] = Judge(chunk[i], prepared, options));
+                toWrite.Add(results);
+            }
+        }
+        finally { toWrite.CompleteAdding(); }
         reader.GetAwaiter().GetResult();
+        writerTask.GetAwaiter().GetResult();
+        if (writeFailure is not null) throw new IOException($"writing the results failed: {writeFailure.Message}", writeFailure);
         if (stderrIsTerminal) stderr.WriteLine();
         return builder.Build();
     }
