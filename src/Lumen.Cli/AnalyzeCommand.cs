@@ -37,6 +37,11 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         Description = "Unit of the values when the file does not say: relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.",
     };
 
+    public Option<bool> DetailOption { get; } = new("--detail")
+    {
+        Description = "With text output: every result of each spectrum after the table (R1–R14, hue bins, photometry, CIE S 026, descriptors).",
+    };
+
     public Option<string> C2Option { get; } = new("--c2")
     {
         Description = "Second radiation constant for the Planckian locus: cie15 (1.4388e-2 m·K, default) or codata (CODATA 2018, CCT +16 ppm lower).",
@@ -78,7 +83,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         C2Option.AcceptOnlyFromAmong("cie15", "codata");
         var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT, Duv and colour rendition (Ra, R1–R14, Rf, Rg) of every spectrum in the files.")
         {
-            Files, ObserverOption, FormatOption, OutputOption, UnitOption, MetricsOption, C2Option,
+            Files, ObserverOption, FormatOption, OutputOption, UnitOption, MetricsOption, C2Option, DetailOption,
         };
         cmd.SetAction(Execute);
         return cmd;
@@ -119,14 +124,14 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         var outPath = parse.GetValue(OutputOption);
         if (outPath is null)
         {
-            ResultWriters.Write(items, format, stdout);
+            ResultWriters.Write(items, format, stdout, parse.GetValue(DetailOption));
         }
         else
         {
             try
             {
                 using var w = new StreamWriter(outPath);
-                ResultWriters.Write(items, format, w);
+                ResultWriters.Write(items, format, w, parse.GetValue(DetailOption));
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
             {

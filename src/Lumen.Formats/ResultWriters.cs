@@ -27,14 +27,59 @@ public static class ResultWriters
     /// <param name="items">Items in input order.</param>
     /// <param name="format">The format.</param>
     /// <param name="output">Destination.</param>
-    public static void Write(IReadOnlyList<AnalysisItem> items, OutputFormat format, TextWriter output)
+    /// <param name="detail">With text: a block of every result per spectrum after the table.</param>
+    public static void Write(IReadOnlyList<AnalysisItem> items, OutputFormat format, TextWriter output, bool detail = false)
     {
         switch (format)
         {
             case OutputFormat.Json: WriteJson(items, output); break;
             case OutputFormat.Csv: WriteCsv(items, output); break;
-            default: WriteText(items, output); break;
+            default:
+                WriteText(items, output);
+                if (detail) WriteDetail(items, output);
+                break;
         }
+    }
+
+    /// <summary>Writes every result of each spectrum as readable lines (the text form of the JSON).</summary>
+    /// <param name="items">Items.</param>
+    /// <param name="output">Destination.</param>
+    public static void WriteDetail(IReadOnlyList<AnalysisItem> items, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        ArgumentNullException.ThrowIfNull(output);
+        string N(double? v, string f) => v is { } x && double.IsFinite(x) ? x.ToString(f, Inv) : "—";
+        foreach (var item in items)
+        {
+            if (item.Result is not { } a) continue;
+            output.WriteLine();
+            output.WriteLine($"{a.Name} — {a.Origin}");
+            output.WriteLine($"  CCT {N(a.Cct.CctKelvin, "0.0")} K, Duv {N(a.Cct.Duv, "+0.00000;-0.00000;0")}  ({Lumen.Temperature.CctResult.Describe(a.Cct.Method)})");
+            if (a.Cri is { } c)
+                output.WriteLine($"  CIE 13.3: Ra {N(c.Ra, "0.0")}; R1–R14 {string.Join(" ", c.R.Select(r => N(r, "0")))}; DC {N(c.Dc, "0.0000")}; reference: {c.Reference.Description}");
+            if (a.Fidelity is { } f)
+            {
+                output.WriteLine($"  CIE 224 / TM-30: Rf {N(f.Rf, "0.0")}, Rg {N(f.Rg, "0.0")}; reference: {f.Reference.Description}");
+                output.WriteLine($"    Rf,hj  {string.Join(" ", f.HueBins.Select(b => N(b.Rf, "0").PadLeft(4)))}");
+                output.WriteLine($"    Rcs,hj {string.Join(" ", f.HueBins.Select(b => N(b.Rcs * 100, "0").PadLeft(4)))} (%)");
+            }
+            if (a.Photometry is { } p)
+            {
+                string abs = p.Quantity is { } q ? $"; {N(p.Photometric, "0.###")} {Lumen.Photometry.Photometer.UnitSymbol(q)} ({N(p.Radiometric, "0.####")} {Lumen.Photometry.Photometer.RadiometricUnitSymbol(q)})" : "";
+                output.WriteLine($"  Photometry: LER {N(p.LerLumensPerWatt, "0.0")} lm/W over {p.BandFirstNm:0}–{p.BandLastNm:0} nm; S/P {N(p.SpRatio, "0.000")}{abs}");
+            }
+            if (a.NonVisual is { } nv)
+            {
+                var mel = nv[0];
+                string edi = mel.Edi is { } e ? $", EDI {N(e, "0.#")} {Lumen.Photometry.Photometer.UnitSymbol(Lumen.Photometry.Photometer.QuantityOf(a.Unit))}" : "";
+                output.WriteLine($"  CIE S 026: melanopic DER {N(mel.Der, "0.000")} ({N(mel.EfficacyMilliwattsPerLumen, "0.0000")} mW/lm){edi}; DER S/M/L-cone, rhodopic {N(nv[1].Der, "0.000")} {N(nv[2].Der, "0.000")} {N(nv[3].Der, "0.000")} {N(nv[4].Der, "0.000")}");
+            }
+            if (a.Spectral is { } sd)
+                output.WriteLine($"  Spectrum: peak {N(sd.PeakNm, "0.#")} nm, centroid {N(sd.CentroidNm, "0.#")} nm, FWHM {N(sd.FwhmNm, "0.#")} nm, dominant {N(sd.DominantNm, "0.#")} nm, purity {N(sd.Purity, "0.000")}");
+            foreach (var w in a.Warnings) output.WriteLine($"  ! {w}");
+        }
+        output.WriteLine();
+        output.WriteLine("CIE S 026 values are metrology, not medical or health advice.");
     }
 
     /// <summary>Observer label used in outputs: "2" or "10".</summary>

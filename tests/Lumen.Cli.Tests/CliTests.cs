@@ -93,6 +93,15 @@ public class CliTests
     }
 
     [Fact]
+    public void Detail_option_prints_every_result_group()
+    {
+        var (code, stdout, _) = Run("", "analyze", "--detail", Path.Combine(RepoRoot, "examples", "foyer-panel-4000K.tsv"));
+        Assert.Equal(0, code);
+        foreach (var s in new[] { "CIE 13.3: Ra", "Rf,hj", "LER", "lx", "melanopic DER", "dominant", "not medical" })
+            Assert.Contains(s, stdout, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Stdin_dash_reads_standard_input()
     {
         var text = "wl,bb\n" + string.Join("\n", Enumerable.Range(380, 401).Select(w => $"{w},1"));
