@@ -27,6 +27,7 @@ public static class SpectrumPlot
         double scale = normalise && peak > 0 ? 1 / peak : 1;
         double x0 = Math.Min(380, w[0]), x1 = Math.Max(780, w[^1]);
         double yMax = v.Max() * scale * 1.1;
+        if (!(yMax > 0)) yMax = 1; // a dark or negative spectrum still gets a usable axis
         // Reference at the same CCT, scaled to the same luminous (ȳ-weighted) sum.
         double[]? reference = null;
         int refStart = 0, refStep = 1;
@@ -207,23 +208,25 @@ public static class VectorGraphic
             foreach (float k in new[] { 0.8f, 0.9f, 1.1f, 1.2f })
                 Style.DashedPolyline(canvas, Enumerable.Range(0, 181).Select(i => new SKPoint(cx + k * r * MathF.Cos(i * MathF.PI / 90), cy + k * r * MathF.Sin(i * MathF.PI / 90))).ToArray(), guide, 4 * s, 4 * s);
         using (var unit = Style.Stroke(Style.Ink, 2 * s)) canvas.DrawCircle(cx, cy, r, unit);
-        var pts = new SKPoint[16];
+        var pts = new List<SKPoint>(16);
         for (int j = 0; j < 16; j++)
         {
             var b = bins[j];
+            if (b.SampleCount == 0) continue; // an empty bin (not possible with the 99 CES and a normal reference) is skipped
             double phi = Math.Atan2(b.ReferenceB, b.ReferenceA);
             double cr = Math.Sqrt(b.ReferenceA * b.ReferenceA + b.ReferenceB * b.ReferenceB);
             double tx = Math.Cos(phi) + (b.TestA - b.ReferenceA) / cr, ty = Math.Sin(phi) + (b.TestB - b.ReferenceB) / cr;
             var from = new SKPoint(cx + (float)Math.Cos(phi) * r, cy - (float)Math.Sin(phi) * r);
-            pts[j] = new SKPoint(cx + (float)tx * r, cy - (float)ty * r);
+            var to = new SKPoint(cx + (float)tx * r, cy - (float)ty * r);
+            pts.Add(to);
             using var arrow = Style.Stroke(colours[j].WithAlpha(255), 2.2f * s);
-            canvas.DrawLine(from, pts[j], arrow);
+            canvas.DrawLine(from, to, arrow);
             using var dot = Style.Fill(colours[j]);
-            canvas.DrawCircle(pts[j], 3.5f * s, dot);
+            canvas.DrawCircle(to, 3.5f * s, dot);
         }
         using (var poly = new SKPath())
         {
-            poly.AddPoly(pts, true);
+            poly.AddPoly(pts.ToArray(), true);
             using var pen = Style.Stroke(Style.Accent, 2.5f * s);
             canvas.DrawPath(poly, pen);
         }

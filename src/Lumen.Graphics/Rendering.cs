@@ -211,6 +211,7 @@ public sealed record AxisMapping(SKRect Plot, double XMin, double XMax, double Y
     /// <summary>"Nice" tick values covering [min, max].</summary>
     internal static IEnumerable<double> Ticks(double min, double max, int target)
     {
+        if (!double.IsFinite(min) || !double.IsFinite(max) || !(max > min)) yield break;
         double raw = (max - min) / target;
         double mag = Math.Pow(10, Math.Floor(Math.Log10(raw)));
         double step = new[] { 1, 2, 2.5, 5, 10 }.Select(m => m * mag).First(v => v >= raw);

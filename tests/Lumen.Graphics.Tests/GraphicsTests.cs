@@ -128,6 +128,18 @@ public class GraphicsTests
     }
 
     [Fact]
+    public void Dark_spectrum_plots_and_reports_without_hanging_or_throwing()
+    {
+        var grid = SyntheticSpectra.Grid(380, 780, 5);
+        var dark = new Spectrum(grid, new double[grid.Length], SpectralUnit.Relative, "dark", SpectrumOrigin.Generated("t"));
+        var a = Assessor.Assess(dark);
+        Assert.True(Render.Png(800, 600, (c, z) => SpectrumPlot.Draw(c, z, dark, a.Cct.CctKelvin)).Length > 100);
+        Assert.True(Render.Png(800, 600, (c, z) => SwatchPlot.Draw(c, z, dark, a.Chromaticity2Degree, a.Cct.CctKelvin, a.Fidelity)).Length > 100);
+        var html = HtmlReport.Single([AnalysisItem.From(new SpectrumRecord("d.csv", 2, "dark", dark, null), AssessmentOptions.Default)], null);
+        Assert.Contains("undefined", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Report_escapes_names_everywhere()
     {
         var grid = SyntheticSpectra.Grid(380, 780, 5);
