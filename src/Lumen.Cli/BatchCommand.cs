@@ -107,6 +107,8 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
             ellipse is null ? null : (x1, y1, x2, y2) => ellipse.MovedTo(x2, y2).Steps(x1, y1));
         var clock = Stopwatch.StartNew();
         long done = 0;
+        var progress = new ReadProgress();
+        long totalBytes = files.Where(File.Exists).Sum(f => new FileInfo(f).Length);
         var po = new ParallelOptions { MaxDegreeOfParallelism = threads };
 
         // Three stages: a reader task fills chunks ahead, this thread computes each chunk in parallel, and a
@@ -119,7 +121,7 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
             try
             {
                 var chunk = new List<SpectrumRecord>(ChunkSize);
-                foreach (var record in Records(files, layout, unit))
+                foreach (var record in Records(files, layout, unit, progress))
                 {
                     chunk.Add(record);
                     if (chunk.Count == ChunkSize) { toCompute.Add(chunk); chunk = new List<SpectrumRecord>(ChunkSize); }
@@ -145,7 +147,10 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
             if (stderrIsTerminal)
             {
                 double rate = done / Math.Max(1e-9, clock.Elapsed.TotalSeconds);
-                stderr.Write(string.Create(CultureInfo.InvariantCulture, $"\r{done:N0} records, {rate:N0}/s, {clock.Elapsed:mm\\:ss} elapsed   "));
+                // ETA from the share of input bytes consumed (the reader runs a few chunks ahead, so it is slightly optimistic).
+                double share = totalBytes > 0 ? Math.Clamp((double)progress.Bytes / totalBytes, 1e-6, 1) : 1;
+                var eta = TimeSpan.FromSeconds(clock.Elapsed.TotalSeconds * (1 / share - 1));
+                stderr.Write(string.Create(CultureInfo.InvariantCulture, $"\r{done:N0} records, {rate:N0}/s, {clock.Elapsed:mm\\:ss} elapsed, about {eta:mm\\:ss} to go   "));
             }
         }
 
@@ -202,10 +207,10 @@ internal sealed class BatchCommand(TextWriter stdout, TextWriter stderr, bool st
     }
 
     /// <summary>All records of all files, streamed (row layout) or per file (column layout).</summary>
-    internal static IEnumerable<SpectrumRecord> Records(IEnumerable<string> files, string layout, SpectralUnit? unit)
+    internal static IEnumerable<SpectrumRecord> Records(IEnumerable<string> files, string layout, SpectralUnit? unit, ReadProgress? progress = null)
     {
         TableLayout? kind = layout switch { "rows" => TableLayout.Rows, "columns" => TableLayout.Columns, _ => null };
         foreach (var file in files)
-            foreach (var r in SpectrumFiles.Read(file, unit, null, kind)) yield return r;
+            foreach (var r in SpectrumFiles.Read(file, unit, null, kind, progress)) yield return r;
     }
 }

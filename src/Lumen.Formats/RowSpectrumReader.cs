@@ -12,6 +12,17 @@ public enum TableLayout
     Rows,
 }
 
+/// <summary>Bytes of input consumed so far (for progress and ETA); updated by the reading thread, read by others.</summary>
+public sealed class ReadProgress
+{
+    private long _bytes;
+
+    /// <summary>Bytes consumed from all files so far.</summary>
+    public long Bytes => Interlocked.Read(ref _bytes);
+
+    internal void Add(long delta) => Interlocked.Add(ref _bytes, delta);
+}
+
 /// <summary>Reads spectrum files in either layout: the one entry point for every command.</summary>
 public static class SpectrumFiles
 {
@@ -20,8 +31,9 @@ public static class SpectrumFiles
     /// <param name="unit">Unit when the file declares none.</param>
     /// <param name="stdin">Standard input for <c>-</c>.</param>
     /// <param name="layout">Layout, or null to detect it from the first non-comment row.</param>
+    /// <param name="progress">Optional byte counter, advanced as the file is consumed.</param>
     /// <returns>Records in file order.</returns>
-    public static IEnumerable<SpectrumRecord> Read(string path, SpectralUnit? unit = null, TextReader? stdin = null, TableLayout? layout = null)
+    public static IEnumerable<SpectrumRecord> Read(string path, SpectralUnit? unit = null, TextReader? stdin = null, TableLayout? layout = null, ReadProgress? progress = null)
     {
         ArgumentNullException.ThrowIfNull(path);
         if (path == "-")
@@ -36,13 +48,27 @@ public static class SpectrumFiles
         if (!File.Exists(path)) return [new SpectrumRecord(path, 0, Path.GetFileName(path), null, new ReadDiagnostic(path, 0, 0, "file not found"))];
         TableLayout k;
         using (var probe = new StreamReader(path, detectEncodingFromByteOrderMarks: true)) k = layout ?? Detect(probe);
-        return k == TableLayout.Columns ? DelimitedSpectrumReader.ReadFile(path, unit) : StreamRows(path, unit);
+        return k == TableLayout.Columns ? Counted(DelimitedSpectrumReader.ReadFile(path, unit), new FileInfo(path).Length, progress) : StreamRows(path, unit, progress);
     }
 
-    private static IEnumerable<SpectrumRecord> StreamRows(string path, SpectralUnit? unit)
+    private static IEnumerable<SpectrumRecord> Counted(IReadOnlyList<SpectrumRecord> records, long bytes, ReadProgress? progress)
     {
-        using var reader = new StreamReader(path, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16);
-        foreach (var r in RowSpectrumReader.Read(reader, path, Path.GetFileNameWithoutExtension(path), unit)) yield return r;
+        progress?.Add(bytes);
+        return records;
+    }
+
+    private static IEnumerable<SpectrumRecord> StreamRows(string path, SpectralUnit? unit, ReadProgress? progress)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
+        using var reader = new StreamReader(stream, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16);
+        long reported = 0;
+        foreach (var r in RowSpectrumReader.Read(reader, path, Path.GetFileNameWithoutExtension(path), unit))
+        {
+            long position = stream.Position;
+            if (position != reported) { progress?.Add(position - reported); reported = position; }
+            yield return r;
+        }
+        progress?.Add(stream.Length - reported);
     }
 
     /// <summary>Expands inputs: a folder becomes its .csv, .tsv and .txt files (recursively, in ordinal order); a file stays.</summary>
