@@ -1,3 +1,4 @@
+using Lumen.Analysis;
 using System.Diagnostics;
 using System.Globalization;
 using BenchmarkDotNet.Attributes;
@@ -40,7 +41,7 @@ public static class BatchScale
     public static int Parse(string file)
     {
         int n = 0;
-        foreach (var r in SpectrumFiles.Read(file)) if (r.Spectrum is not null || r.Error is not null) n++;
+        foreach (var r in SpectrumFiles.Read(file)) if (r is SpectrumRecord or ErrorRecord) n++;
         return n;
     }
 

@@ -3,6 +3,7 @@ using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Spectra;
 using Lumen.Temperature;
+using Lumen.Synthetic;
 
 namespace Lumen.Bench;
 

@@ -1,19 +1,16 @@
 using System.CommandLine;
-using Lumen.Assessment;
+using Lumen.Analysis;
+using Lumen.Blackbody;
 using Lumen.Cie;
 using Lumen.Formats;
-using Lumen.Spectra;
+using Lumen.Temperature;
 
 namespace Lumen.Cli;
 
-/// <summary><c>lumen analyze FILE...</c>: colorimetry and CCT/Duv for every spectrum in the files.</summary>
+/// <summary><c>lumen analyze INPUT...</c>: every result for every spectrum. Parse options → assess each record → write.</summary>
 internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWriter stderr)
 {
-    public Argument<string[]> Files { get; } = new("files")
-    {
-        Description = "Spectrum files (delimited text: wavelength column in nm, one spectrum per column); '-' reads standard input.",
-        Arity = ArgumentArity.OneOrMore,
-    };
+    private readonly InputOptions _inputs = new();
 
     public Option<string> ObserverOption { get; } = new("--observer")
     {
@@ -21,21 +18,9 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         DefaultValueFactory = _ => "2",
     };
 
-    public Option<string> FormatOption { get; } = new("--format")
-    {
-        Description = "Output format: text, json or csv.",
-        DefaultValueFactory = _ => "text",
-    };
+    public Option<string> FormatOption { get; } = CommonOptions.Format("text", "json", "csv");
 
-    public Option<string?> OutputOption { get; } = new("--output", "-o")
-    {
-        Description = "Write results to this file instead of standard output.",
-    };
-
-    public Option<string?> UnitOption { get; } = new("--unit")
-    {
-        Description = "Unit of the values when the file does not say: relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.",
-    };
+    public Option<string?> OutputOption { get; } = OutputTarget.Option("Write results to this file instead of standard output.", false, "--output");
 
     public Option<bool> DetailOption { get; } = new("--detail")
     {
@@ -79,66 +64,38 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
     public Command Build()
     {
         ObserverOption.AcceptOnlyFromAmong("2", "10");
-        FormatOption.AcceptOnlyFromAmong("text", "json", "csv");
         C2Option.AcceptOnlyFromAmong("cie15", "codata");
-        var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT, Duv and colour rendition (Ra, R1–R14, Rf, Rg) of every spectrum in the files.")
-        {
-            Files, ObserverOption, FormatOption, OutputOption, UnitOption, MetricsOption, C2Option, DetailOption,
-        };
+        var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT, Duv, colour rendition (Ra, R1–R14, Rf, Rg), photometry and CIE S 026 values of every spectrum in the inputs.");
+        _inputs.AddTo(cmd);
+        cmd.Add(ObserverOption); cmd.Add(FormatOption); cmd.Add(OutputOption); cmd.Add(MetricsOption); cmd.Add(C2Option); cmd.Add(DetailOption);
         cmd.SetAction(Execute);
         return cmd;
     }
 
     private int Execute(ParseResult parse)
     {
-        var observer = parse.GetValue(ObserverOption) == "10" ? Observer.Cie1964TenDegree : Observer.Cie1931TwoDegree;
-        var format = parse.GetValue(FormatOption) switch { "json" => OutputFormat.Json, "csv" => OutputFormat.Csv, _ => OutputFormat.Text };
-        SpectralUnit? unit = null;
-        var unitText = parse.GetValue(UnitOption);
-        if (unitText is not null)
-        {
-            if (!SpectralUnits.TryParse(unitText, out var u))
-            {
-                stderr.WriteLine($"lumen: --unit '{unitText}' is not a unit; expected relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.");
-                return ExitCodes.UsageOrInputError;
-            }
-            unit = u;
-        }
+        if (!_inputs.TryResolve(parse, stderr, out var inputs)) return ExitCodes.UsageError;
         if (!TryParseMetrics(parse.GetValue(MetricsOption) ?? "all", out var metrics, out var badMetric))
         {
             stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity, photometry, nonvisual, spectral or all.");
-            return ExitCodes.UsageOrInputError;
+            return ExitCodes.UsageError;
         }
-        var c2 = parse.GetValue(C2Option) == "codata" ? Lumen.Blackbody.C2Convention.Codata2018 : Lumen.Blackbody.C2Convention.Cie15Its90;
-        var options = new AssessmentOptions(observer, new Lumen.Temperature.CctOptions(C2: c2), metrics);
-        var items = new List<AnalysisItem>();
-        foreach (var file in parse.GetValue(Files) ?? [])
-        {
-            foreach (var record in SpectrumFiles.Read(file, unit, stdin))
-            {
-                if (record.Error is not null) stderr.WriteLine($"lumen: {record.Error}");
-                items.Add(AnalysisItem.From(record, options));
-            }
-        }
-
         var outPath = parse.GetValue(OutputOption);
-        if (outPath is null)
+        if (OutputTarget.ConflictWithInputs(outPath, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen: {conflict}."); return ExitCodes.UsageError; }
+        var observer = parse.GetValue(ObserverOption) == "10" ? Observer.Cie1964TenDegree : Observer.Cie1931TwoDegree;
+        var c2 = parse.GetValue(C2Option) == "codata" ? C2Convention.Codata2018 : C2Convention.Cie15Its90;
+        var options = new AssessmentOptions(observer, new CctOptions(C2: c2), metrics);
+
+        var items = new List<RecordOutcome>();
+        foreach (var record in inputs.Records(stdin))
         {
-            ResultWriters.Write(items, format, stdout, parse.GetValue(DetailOption));
+            var outcome = RecordOutcome.Of(record, options);
+            CommonOptions.ReportError(stderr, outcome.Error);
+            items.Add(outcome);
         }
-        else
-        {
-            try
-            {
-                using var w = new StreamWriter(outPath);
-                ResultWriters.Write(items, format, w, parse.GetValue(DetailOption));
-            }
-            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-            {
-                stderr.WriteLine($"lumen: cannot write '{outPath}': {ex.Message}");
-                return ExitCodes.UsageOrInputError;
-            }
-        }
-        return items.Any(i => i.Result is null) ? ExitCodes.UsageOrInputError : ExitCodes.Success;
+        var format = CommonOptions.ToOutputFormat(parse.GetValue(FormatOption));
+        if (OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(items, format, w, parse.GetValue(DetailOption))) is { } failure)
+            return CommonOptions.OutputFailed(stderr, failure);
+        return items.Any(i => i.Error is not null) ? ExitCodes.InputErrors : ExitCodes.Success;
     }
 }

@@ -10,15 +10,16 @@ public static class LumenApp
     /// <param name="stdin">Standard input (for <c>-</c>).</param>
     /// <param name="stdout">Results.</param>
     /// <param name="stderr">Diagnostics.</param>
-    /// <returns>An exit code from <see cref="ExitCodes"/>.</returns>
     /// <param name="stderrIsTerminal">True when standard error is a terminal (progress lines are shown then).</param>
+    /// <returns>An exit code from <see cref="ExitCodes"/>.</returns>
     public static int Run(string[] args, TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal = false)
     {
-        var root = new RootCommand("lumen — colorimetry, CCT/Duv and colour quality of measured light-source spectra.");
+        ArgumentNullException.ThrowIfNull(stderr);
+        var root = new RootCommand("lumen — colorimetry, CCT/Duv and colour quality of measured light-source spectra.\n" + ExitCodes.Legend);
         root.Subcommands.Add(new AnalyzeCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new BlackbodyCommand(stdout, stderr).Build());
         root.Subcommands.Add(new FitCommand(stdin, stdout, stderr).Build());
-        root.Subcommands.Add(new BatchCommand(stdout, stderr, stderrIsTerminal).Build());
+        root.Subcommands.Add(new BatchCommand(stdin, stdout, stderr, stderrIsTerminal).Build());
         root.Subcommands.Add(new PlotCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new ReportCommand(stdin, stdout, stderr).Build());
         var parse = root.Parse(args);
@@ -26,28 +27,18 @@ public static class LumenApp
         {
             foreach (var e in parse.Errors) stderr.WriteLine($"lumen: {e.Message}");
             stderr.WriteLine("Try 'lumen --help'.");
-            return ExitCodes.UsageOrInputError;
+            return ExitCodes.UsageError;
         }
-        return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr });
-    }
-}
-
-/// <summary>Entry point.</summary>
-public static class Program
-{
-    /// <summary>Runs lumen on the process's streams.</summary>
-    /// <param name="args">Arguments.</param>
-    /// <returns>Exit code.</returns>
-    public static int Main(string[] args)
-    {
-        var stdout = new StreamWriter(Console.OpenStandardOutput()) { AutoFlush = false };
         try
         {
-            return LumenApp.Run(args, Console.In, stdout, Console.Error, !Console.IsErrorRedirected);
+            return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
         }
-        finally
+        catch (Exception ex) when (ex is not OutOfMemoryException)
         {
-            stdout.Flush();
+            // A bug in Lumen: one line for the user, the trace only when asked for.
+            stderr.WriteLine($"lumen: internal error ({ex.GetType().Name}: {ex.Message}); please report it with the command line and input.");
+            if (Environment.GetEnvironmentVariable("LUMEN_DEBUG") is "1" or "true") stderr.WriteLine(ex.ToString());
+            return ExitCodes.InternalError;
         }
     }
 }

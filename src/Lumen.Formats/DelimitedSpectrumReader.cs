@@ -1,3 +1,4 @@
+using Lumen.Analysis;
 using System.Globalization;
 using Lumen.Spectra;
 
@@ -28,7 +29,7 @@ public static class DelimitedSpectrumReader
     /// <param name="unit">Unit to assume when the file does not declare one; null for relative.</param>
     /// <param name="stdin">Standard input, used for <c>-</c>.</param>
     /// <returns>One record per data column, in file order.</returns>
-    public static IReadOnlyList<SpectrumRecord> ReadFile(string path, SpectralUnit? unit = null, TextReader? stdin = null)
+    public static IReadOnlyList<InputRecord> ReadFile(string path, SpectralUnit? unit = null, TextReader? stdin = null)
     {
         ArgumentNullException.ThrowIfNull(path);
         if (path == "-")
@@ -45,7 +46,7 @@ public static class DelimitedSpectrumReader
     /// <param name="stem">Stem for names of spectra without a header.</param>
     /// <param name="unit">Unit to assume when the text does not declare one; null for relative.</param>
     /// <returns>One record per data column, in order; a single error record when the file has no usable data.</returns>
-    public static IReadOnlyList<SpectrumRecord> Read(TextReader reader, string source, string stem, SpectralUnit? unit = null)
+    public static IReadOnlyList<InputRecord> Read(TextReader reader, string source, string stem, SpectralUnit? unit = null)
     {
         ArgumentNullException.ThrowIfNull(reader);
         var declaredUnit = unit;
@@ -147,7 +148,7 @@ public static class DelimitedSpectrumReader
         if (columnCount < 2)
             return [FileError(source, fileError!.Line, fileError.Column, fileError.Message)];
 
-        var records = new List<SpectrumRecord>(columnCount - 1);
+        var records = new List<InputRecord>(columnCount - 1);
         var finalUnit = declaredUnit ?? SpectralUnit.Relative;
         for (int c = 1; c < columnCount; c++)
         {
@@ -155,17 +156,17 @@ public static class DelimitedSpectrumReader
             var error = fileError ?? columnErrors![c];
             if (error is not null)
             {
-                records.Add(new SpectrumRecord(source, c + 1, name, null, error));
+                records.Add(new ErrorRecord(source, c + 1, name, error));
                 continue;
             }
             try
             {
                 var s = new Spectrum(wavelengths!.ToArray(), values![c].ToArray(), finalUnit, name, new SpectrumOrigin(source, c + 1));
-                records.Add(new SpectrumRecord(source, c + 1, name, s, null));
+                records.Add(new SpectrumRecord(source, c + 1, name, s));
             }
             catch (InvalidSpectrumException ex)
             {
-                records.Add(new SpectrumRecord(source, c + 1, name, null, new ReadDiagnostic(source, lastLine, c + 1, ex.Message)));
+                records.Add(new ErrorRecord(source, c + 1, name, new ReadDiagnostic(source, lastLine, c + 1, ex.Message)));
             }
         }
         return records;
@@ -197,8 +198,8 @@ public static class DelimitedSpectrumReader
         return true;
     }
 
-    private static SpectrumRecord FileError(string source, int line, int column, string message) =>
-        new(source, 0, Path.GetFileName(source), null, new ReadDiagnostic(source, line, column, message));
+    private static ErrorRecord FileError(string source, int line, int column, string message) =>
+        new(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, line, column, message));
 
     private static string Shorten(string s) => s.Length <= 24 ? s : s[..21] + "...";
 

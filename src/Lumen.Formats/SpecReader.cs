@@ -1,3 +1,4 @@
+using Lumen.Analysis;
 using System.Text;
 using System.Text.Json;
 using Lumen.Conformance;
@@ -63,7 +64,12 @@ public static class SpecReader
             ChromaticityTarget? target = null;
             if (root.TryGetProperty("target", out var t)) target = ReadTarget(t, Error);
             var tolerance = new ChromaticityTolerance(ToleranceKind.None, 0);
-            if (root.TryGetProperty("chromaticity", out var c)) tolerance = ReadTolerance(c, target, Error);
+            var warnings = new List<string>();
+            if (root.TryGetProperty("chromaticity", out var c)) tolerance = ReadTolerance(c, target, Error, (path, message) =>
+            {
+                var (line, col) = positions.TryGetValue(path, out var pp) ? pp : (1, 1);
+                warnings.Add(new ReadDiagnostic(source, line, col, message).ToString());
+            });
             var limits = new List<FieldLimit>();
             if (root.TryGetProperty("limits", out var l))
             {
@@ -80,7 +86,7 @@ public static class SpecReader
                 }
             }
             if (list.Count > 0) return null;
-            return new ToleranceSpec(name, target, tolerance, limits);
+            return new ToleranceSpec(name, target, tolerance, limits) { Warnings = warnings };
         }
     }
 
@@ -135,12 +141,12 @@ public static class SpecReader
         return null;
     }
 
-    private static ChromaticityTolerance ReadTolerance(JsonElement c, ChromaticityTarget? target, Action<string, string> error)
+    private static ChromaticityTolerance ReadTolerance(JsonElement c, ChromaticityTarget? target, Action<string, string> error, Action<string, string> warn)
     {
         var none = new ChromaticityTolerance(ToleranceKind.None, 0);
-        if (c.ValueKind != JsonValueKind.Object) { error("/chromaticity", "chromaticity must be an object: {\"ellipseSteps\": 3} | {\"quadrangle\": true} | {\"duvRadius\": 0.003}"); return none; }
+        if (c.ValueKind != JsonValueKind.Object) { error("/chromaticity", "chromaticity must be an object: {\"ellipseSteps\": 3} | {\"quadrangle\": true} | {\"uPrimeVPrimeRadius\": 0.003}"); return none; }
         var props = c.EnumerateObject().ToArray();
-        if (props.Length != 1) { error("/chromaticity", "chromaticity needs exactly one of ellipseSteps, quadrangle, duvRadius"); return none; }
+        if (props.Length != 1) { error("/chromaticity", "chromaticity needs exactly one of ellipseSteps, quadrangle, uPrimeVPrimeRadius"); return none; }
         var p = props[0];
         if (target is null) { error("/chromaticity", "a chromaticity tolerance needs a target"); return none; }
         switch (p.Name)
@@ -153,13 +159,16 @@ public static class SpecReader
                 if (p.Value.ValueKind != JsonValueKind.Number || !(p.Value.GetDouble() > 0 && p.Value.GetDouble() <= 20))
                 { error("/chromaticity/ellipseSteps", "ellipseSteps must be a number of steps in (0, 20]"); return none; }
                 return new ChromaticityTolerance(ToleranceKind.EllipseSteps, p.Value.GetDouble());
+            case "uPrimeVPrimeRadius":
             case "duvRadius":
             case "uvRadius":
+                if (p.Name != "uPrimeVPrimeRadius")
+                    warn($"/chromaticity/{p.Name}", $"'{p.Name}' is deprecated (it is a Δu'v' radius, not a Duv); write 'uPrimeVPrimeRadius' instead");
                 if (p.Value.ValueKind != JsonValueKind.Number || !(p.Value.GetDouble() > 0 && p.Value.GetDouble() <= 0.05))
                 { error($"/chromaticity/{p.Name}", $"{p.Name} must be a Δu'v' radius in (0, 0.05]"); return none; }
                 return new ChromaticityTolerance(ToleranceKind.UPrimeVPrimeRadius, p.Value.GetDouble());
             default:
-                error($"/chromaticity/{p.Name}", $"unknown chromaticity tolerance '{p.Name}'; expected ellipseSteps, quadrangle or duvRadius");
+                error($"/chromaticity/{p.Name}", $"unknown chromaticity tolerance '{p.Name}'; expected ellipseSteps, quadrangle or uPrimeVPrimeRadius");
                 return none;
         }
     }
@@ -172,9 +181,9 @@ public static class SpecReader
             if (p.Name is not ("field" or "min" or "max")) { error($"{path}/{p.Name}", $"unknown key '{p.Name}' in a limit; expected field, min, max"); return null; }
         if (!item.TryGetProperty("field", out var f) || f.ValueKind != JsonValueKind.String) { error(path, "a limit needs \"field\": a path into the analyze JSON, e.g. \"cri.ra\""); return null; }
         string field = f.GetString()!;
-        if (!AssessmentFields.IsKnown(field))
+        if (!ResultFields.IsKnown(field))
         {
-            var hint = AssessmentFields.Paths.Where(x => x.StartsWith(field.Split('.')[0], StringComparison.Ordinal)).Take(6);
+            var hint = ResultFields.Paths.Where(x => x.StartsWith(field.Split('.')[0], StringComparison.Ordinal)).Take(6);
             error($"{path}/field", $"unknown field '{field}'; expected a numeric path such as cri.ra, cri.r[8], fidelity.rf, cct.duv{(hint.Any() ? " (known here: " + string.Join(", ", hint) + ", …)" : "")}");
             return null;
         }
@@ -238,24 +247,5 @@ public static class SpecReader
             }
         }
         return result;
-    }
-
-    /// <summary>Writes a readable one-line description of a spec (for summaries and reports).</summary>
-    /// <param name="spec">The spec.</param>
-    /// <returns>Text.</returns>
-    public static string Describe(ToleranceSpec spec)
-    {
-        ArgumentNullException.ThrowIfNull(spec);
-        var sb = new StringBuilder(spec.Name);
-        if (spec.Target is { } t) sb.Append("; target ").Append(t.Description);
-        sb.Append(spec.Tolerance.Kind switch
-        {
-            ToleranceKind.Quadrangle => "; inside the ANSI C78.377 quadrangle",
-            ToleranceKind.EllipseSteps => $"; within {spec.Tolerance.Value:0.#} steps",
-            ToleranceKind.UPrimeVPrimeRadius => $"; within Δu'v' {spec.Tolerance.Value:0.####}",
-            _ => "",
-        });
-        foreach (var l in spec.Limits) sb.Append("; ").Append(l.Field).Append(' ').Append(l.Description);
-        return sb.ToString();
     }
 }

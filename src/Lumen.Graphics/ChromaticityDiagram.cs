@@ -6,42 +6,6 @@ using SkiaSharp;
 
 namespace Lumen.Graphics;
 
-/// <summary>The chromaticity diagram used for plotting.</summary>
-public enum DiagramSpace
-{
-    /// <summary>CIE 1931 (x, y).</summary>
-    Xy,
-
-    /// <summary>CIE 1976 (u′, v′).</summary>
-    UPrimeVPrime,
-}
-
-/// <summary>Outcome used to mark a point.</summary>
-public enum PointStatus
-{
-    /// <summary>No specification.</summary>
-    None,
-
-    /// <summary>Passed the specification.</summary>
-    Pass,
-
-    /// <summary>Failed the specification.</summary>
-    Fail,
-}
-
-/// <summary>A measured point to plot.</summary>
-/// <param name="Label">Name (shown for few points).</param>
-/// <param name="Chromaticity">Its CIE 1931 2° chromaticity.</param>
-/// <param name="Status">Pass/fail marking.</param>
-public sealed record DiagramPoint(string Label, Chromaticity Chromaticity, PointStatus Status);
-
-/// <summary>What a chromaticity diagram shows.</summary>
-/// <param name="Space">xy or u′v′.</param>
-/// <param name="Points">Measured points.</param>
-/// <param name="Spec">Optional specification whose quadrangle, ellipse or circle is drawn.</param>
-/// <param name="Title">Title.</param>
-public sealed record DiagramOptions(DiagramSpace Space, IReadOnlyList<DiagramPoint> Points, PreparedSpec? Spec = null, string Title = "Chromaticity");
-
 /// <summary>
 /// A CIE 1931 xy or CIE 1976 u′v′ diagram: the spectrum locus with a colour fill, the Planckian locus with
 /// CCT ticks and isotemperature lines, Duv = ±0.01 and ±0.02 lines, optional spec geometry, and measured
@@ -86,7 +50,7 @@ public static class ChromaticityDiagram
     /// <param name="space">Space.</param>
     /// <returns>(x, y) or (u′, v′).</returns>
     public static (double X, double Y) Coord(Chromaticity c, DiagramSpace space) =>
-        space == DiagramSpace.Xy ? (c.X, c.Y) : (c.UPrime, c.VPrime);
+        space == DiagramSpace.Xy ? (c.SmallX, c.SmallY) : (c.UPrime, c.VPrime);
 
     /// <summary>Draws the diagram.</summary>
     /// <param name="canvas">Canvas.</param>
@@ -145,8 +109,8 @@ public static class ChromaticityDiagram
             {
                 double a = m.XMin + (i + 0.5) / w * (m.XMax - m.XMin), b = m.YMax - (j + 0.5) / h * (m.YMax - m.YMin);
                 var c = space == DiagramSpace.Xy ? Chromaticity.FromXy(a, b) : Chromaticity.FromUPrimeVPrime(a, b);
-                if (!(c.X > 0 && c.Y > 0 && c.X + c.Y < 1)) { bmp.SetPixel(i, j, SKColors.White); continue; }
-                var rgb = Srgb.LightColour(c);
+                if (!(c.SmallX > 0 && c.SmallY > 0 && c.SmallX + c.SmallY < 1)) { bmp.SetPixel(i, j, SKColors.White); continue; }
+                var rgb = Srgb.LightColor(c);
                 bmp.SetPixel(i, j, new SKColor((byte)(rgb.R * 0.45 + 255 * 0.55), (byte)(rgb.G * 0.45 + 255 * 0.55), (byte)(rgb.B * 0.45 + 255 * 0.55)));
             }
         canvas.Save();
@@ -246,7 +210,7 @@ public static class ChromaticityDiagram
                         var a = q.Corners[i]; var b = q.Corners[(i + 1) % 4];
                         for (int k = 0; k <= 20; k++)
                         {
-                            var c = Coord(Chromaticity.FromXy(a.X + (b.X - a.X) * k / 20, a.Y + (b.Y - a.Y) * k / 20), space);
+                            var c = Coord(Chromaticity.FromXy(a.SmallX + (b.SmallX - a.SmallX) * k / 20, a.SmallY + (b.SmallY - a.SmallY) * k / 20), space);
                             if (i == 0 && k == 0) path.MoveTo(m.Px(c.X), m.Py(c.Y)); else path.LineTo(m.Px(c.X), m.Py(c.Y));
                         }
                     }
@@ -256,7 +220,7 @@ public static class ChromaticityDiagram
                     for (int k = 0; k <= 120; k++)
                     {
                         var p = e.PointAt(spec.Spec.Tolerance.Value, 2 * Math.PI * k / 120);
-                        var c = Coord(Chromaticity.FromXy(p.X, p.Y), space);
+                        var c = Coord(Chromaticity.FromXy(p.SmallX, p.SmallY), space);
                         if (k == 0) path.MoveTo(m.Px(c.X), m.Py(c.Y)); else path.LineTo(m.Px(c.X), m.Py(c.Y));
                     }
                     break;
@@ -344,7 +308,7 @@ public static class ChromaticityDiagram
 
     private static (double X, double Y) LocusPoint(int wl, DiagramSpace space)
     {
-        var cmf = CieTables.ColourMatchingFunctions(Observer.Cie1931TwoDegree);
+        var cmf = CieTables.ColorMatchingFunctions(Observer.Cie1931TwoDegree);
         var t = new Tristimulus(cmf.At("x_bar", wl), cmf.At("y_bar", wl), cmf.At("z_bar", wl));
         return Coord(t.Chromaticity, space);
     }

@@ -2,9 +2,9 @@ using System.Globalization;
 using System.Net;
 using System.Text;
 using Lumen.Conformance;
-using Lumen.Formats;
+using Lumen.Analysis;
 using Lumen.Graphics;
-using Lumen.Quality;
+using Lumen.BatchStatistics;
 
 namespace Lumen.Graphics;
 
@@ -65,7 +65,7 @@ public static class HtmlReport
     private static void Cautions(StringBuilder sb, bool batch)
     {
         sb.Append("<div class=\"caution\" id=\"cautions\"><b>Cautions.</b> ");
-        if (batch) sb.Append(E(BatchSummaryWriter.Caution)).Append(' ');
+        if (batch) sb.Append(E(BatchSummary.Caution)).Append(' ');
         sb.Append("Non-visual (CIE S 026) quantities are metrology, not medical or health advice; defer to local codes, applicable standards and qualified practice for lighting design decisions. ");
         sb.Append("Results describe the data given; calibration, stray light and wavelength accuracy of the measurement decide their quality.</div>");
     }
@@ -74,7 +74,7 @@ public static class HtmlReport
     /// <param name="items">Analysed records.</param>
     /// <param name="spec">Optional spec.</param>
     /// <returns>HTML.</returns>
-    public static string Single(IReadOnlyList<AnalysisItem> items, PreparedSpec? spec)
+    public static string Single(IReadOnlyList<RecordOutcome> items, PreparedSpec? spec)
     {
         ArgumentNullException.ThrowIfNull(items);
         var sb = new StringBuilder();
@@ -88,42 +88,42 @@ public static class HtmlReport
         foreach (var item in items)
         {
             k++;
-            if (item.Result is not { } a)
+            if (item.Assessment is not { } a)
             {
-                sb.Append("<tr><td class=\"t\">").Append(E(item.Record.Name)).Append("</td><td class=\"t\" colspan=\"11\"><span class=\"error\">error</span> ").Append(E(item.Record.Error!.ToString())).Append("</td></tr>");
+                sb.Append("<tr><td class=\"t\">").Append(E(item.Record.Name)).Append("</td><td class=\"t\" colspan=\"11\"><span class=\"error\">error</span> ").Append(E(item.Error?.ToString() ?? "")).Append("</td></tr>");
                 continue;
             }
             var c = a.Chromaticity2Degree;
-            sb.Append(Inv, $"<tr><td class=\"t\"><a href=\"#unit-{k}\">{E(a.Name)}</a></td><td class=\"t\">{E(a.Origin.ToString())}</td><td>{F(a.Cct.CctKelvin, "0")}</td><td>{F(a.Cct.Duv, "+0.0000;-0.0000;0.0000")}</td><td>{F(c.X)}</td><td>{F(c.Y)}</td><td>{F(c.UPrime)}</td><td>{F(c.VPrime)}</td><td>{F(a.Cri?.Ra, "0.0")}</td><td>{F(a.Cri?.R9, "0.0")}</td><td>{F(a.Fidelity?.Rf, "0.0")}</td><td>{F(a.Fidelity?.Rg, "0.0")}</td>");
+            sb.Append(Inv, $"<tr><td class=\"t\"><a href=\"#unit-{k}\">{E(a.Name)}</a></td><td class=\"t\">{E(a.Origin.ToString())}</td><td>{F(a.Cct.CctKelvin, "0")}</td><td>{F(a.Cct.Duv, "+0.0000;-0.0000;0.0000")}</td><td>{F(c.SmallX)}</td><td>{F(c.SmallY)}</td><td>{F(c.UPrime)}</td><td>{F(c.VPrime)}</td><td>{F(a.Cri?.Ra, "0.0")}</td><td>{F(a.Cri?.R9, "0.0")}</td><td>{F(a.Fidelity?.Rf, "0.0")}</td><td>{F(a.Fidelity?.Rg, "0.0")}</td>");
             if (spec is not null)
             {
-                var v = spec.Evaluate(c, p => AssessmentFields.Get(a, p));
+                var v = spec.Evaluate(a);
                 sb.Append(v.Pass ? "<td class=\"t pass\">pass</td>" : "<td class=\"t fail\">fail</td>");
             }
             sb.Append("</tr>");
         }
         sb.Append("</table>");
-        var ok = items.Where(i => i.Result is not null).ToList();
+        var ok = items.Where(i => i.Assessment is not null).ToList();
         if (ok.Count > 0)
         {
             sb.Append("<h2>Chromaticity</h2>");
-            var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Result!.Chromaticity2Degree, Status(spec, i.Result!))).ToList();
+            var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree, Status(spec, i.Assessment!))).ToList();
             sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(DiagramSpace.Xy, pts, spec, "CIE 1931 chromaticity")), "locus", "chromaticity diagram"));
         }
         k = 0;
         foreach (var item in items)
         {
             k++;
-            if (item.Result is { } a) Detail(sb, a, item.Record, spec, k);
+            if (item.Assessment is { } a) Detail(sb, a, item.Record, spec, k);
         }
         sb.Append("</main></body></html>");
         return sb.ToString();
     }
 
-    private static PointStatus Status(PreparedSpec? spec, Lumen.Assessment.Assessment a) =>
-        spec is null ? PointStatus.None : spec.Evaluate(a.Chromaticity2Degree, p => AssessmentFields.Get(a, p)).Pass ? PointStatus.Pass : PointStatus.Fail;
+    private static PointStatus Status(PreparedSpec? spec, Assessment a) =>
+        spec is null ? PointStatus.None : spec.Evaluate(a).Pass ? PointStatus.Pass : PointStatus.Fail;
 
-    private static void Detail(StringBuilder sb, Lumen.Assessment.Assessment a, SpectrumRecord record, PreparedSpec? spec, int k)
+    private static void Detail(StringBuilder sb, Assessment a, InputRecord record, PreparedSpec? spec, int k)
     {
         sb.Append(Inv, $"<section id=\"unit-{k}\"><h2>{E(a.Name)}</h2><p class=\"muted\">{E(a.Origin.ToString())}; unit {E(Lumen.Spectra.SpectralUnits.Symbol(a.Unit))}</p>");
         foreach (var w in a.Warnings) sb.Append("<div class=\"warn\">").Append(E(w)).Append("</div>");
@@ -131,7 +131,7 @@ public static class HtmlReport
         sb.Append("<table><tr><th>quantity</th><th>value</th></tr>");
         void Row(string n, string v) => sb.Append("<tr><td class=\"t\">").Append(n).Append("</td><td>").Append(v).Append("</td></tr>");
         Row("CCT (K), Duv", $"{F(a.Cct.CctKelvin, "0.0")}, {F(a.Cct.Duv, "+0.00000;-0.00000;0")}");
-        Row("x, y (CIE 1931 2°)", $"{F(c.X, "0.00000")}, {F(c.Y, "0.00000")}");
+        Row("x, y (CIE 1931 2°)", $"{F(c.SmallX, "0.00000")}, {F(c.SmallY, "0.00000")}");
         Row("u′, v′ (CIE 1976)", $"{F(c.UPrime, "0.00000")}, {F(c.VPrime, "0.00000")}");
         Row("X, Y, Z (Y = 100)", $"{F(a.Tristimulus.X, "0.000")}, {F(a.Tristimulus.Y, "0.000")}, {F(a.Tristimulus.Z, "0.000")}");
         if (a.Cri is { } cri) Row("Ra (CIE 13.3), DC", $"{F(cri.Ra, "0.0")}, {F(cri.Dc, "0.0000")} ({E(cri.Reference.Description)})");
@@ -167,19 +167,19 @@ public static class HtmlReport
         }
         if (spec is not null)
         {
-            var v = spec.Evaluate(c, p => AssessmentFields.Get(a, p));
+            var v = spec.Evaluate(a);
             sb.Append("<h3>Verdict: ").Append(v.Pass ? "<span class=\"pass\">pass</span>" : "<span class=\"fail\">fail</span>").Append("</h3><table><tr><th>criterion</th><th>measured</th><th>limit</th><th>margin</th><th>result</th></tr>");
             foreach (var cr2 in v.Criteria)
                 sb.Append(Inv, $"<tr><td class=\"t\">{E(cr2.Criterion)}</td><td>{F(cr2.Measured, "0.#####")}</td><td class=\"t\">{E(cr2.Limit)}</td><td>{F(cr2.Margin, "0.#####")}</td><td class=\"t {(cr2.Pass ? "pass" : "fail")}\">{(cr2.Pass ? "pass" : "fail")}</td></tr>");
             sb.Append("</table>");
         }
-        if (record.Spectrum is { } spectrum)
+        if (record is SpectrumRecord { Spectrum: var spectrum })
         {
             sb.Append("<div class=\"grid\">");
-            sb.Append(InlineSvg(1200, 900, (cv, z) => SpectrumPlot.Draw(cv, z, spectrum, a.Cct.CctKelvin), $"spectrum-{k}", "spectrum"));
+            sb.Append(InlineSvg(1200, 900, (cv, z) => SpectrumPlot.Draw(cv, z, spectrum, a.Fidelity?.Reference), $"spectrum-{k}", "spectrum"));
             if (a.Fidelity is { } fid) sb.Append(InlineSvg(1200, 900, (cv, z) => VectorGraphic.Draw(cv, z, fid, a.Name), $"vector-{k}", "colour vector graphic"));
             sb.Append("</div>");
-            sb.Append(InlineSvg(1200, 520, (cv, z) => SwatchPlot.Draw(cv, z, spectrum, a.Chromaticity2Degree, a.Cct.CctKelvin, a.Fidelity), $"swatch-{k}", "colour samples"));
+            sb.Append(InlineSvg(1200, 520, (cv, z) => SwatchPlot.Draw(cv, z, spectrum, a), $"swatch-{k}", "colour samples"));
         }
         sb.Append("<h3>Provenance</h3><table>");
         foreach (var (key, value) in a.Provenance.Methods) sb.Append("<tr><td class=\"t\">").Append(E(key)).Append("</td><td class=\"t\">").Append(E(value)).Append("</td></tr>");
@@ -193,14 +193,14 @@ public static class HtmlReport
     /// <param name="summary">The batch summary.</param>
     /// <param name="spec">The spec.</param>
     /// <returns>HTML.</returns>
-    public static string Batch(IReadOnlyList<BatchItem> items, BatchSummary summary, PreparedSpec spec)
+    public static string Batch(IReadOnlyList<RecordOutcome> items, BatchSummary summary, PreparedSpec spec)
     {
         ArgumentNullException.ThrowIfNull(items);
         ArgumentNullException.ThrowIfNull(summary);
         ArgumentNullException.ThrowIfNull(spec);
         var sb = new StringBuilder();
         Head(sb, "Lumen batch report");
-        sb.Append("<h1>Batch report</h1><p class=\"muted\">").Append(E(SpecReader.Describe(spec.Spec))).Append("</p>");
+        sb.Append("<h1>Batch report</h1><p class=\"muted\">").Append(E(spec.Spec.Description)).Append("</p>");
         Cautions(sb, true);
         sb.Append("<h2>Summary</h2><table id=\"summary\">");
         sb.Append(Inv, $"<tr><th>records read</th><td>{summary.RecordsRead}</td></tr><tr><th>results</th><td>{summary.Results}</td></tr><tr><th>errors</th><td>{summary.Errors}</td></tr>");
@@ -217,14 +217,14 @@ public static class HtmlReport
             foreach (var c in summary.Capabilities) sb.Append(Inv, $"<tr><td class=\"t\">{E(c.Field)}</td><td class=\"t\">{F(c.Lower)} … {F(c.Upper)}</td><td>{F(c.Mean)}</td><td>{F(c.StandardDeviation)}</td><td>{F(c.Cpk, "0.00")}</td></tr>");
             sb.Append("</table>");
         }
-        var ok = items.Where(i => i.Result is not null).ToList();
+        var ok = items.Where(i => i.Assessment is not null).ToList();
         sb.Append("<h2>Spread</h2>");
-        var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Result!.Chromaticity2Degree, i.Verdict!.Pass ? PointStatus.Pass : PointStatus.Fail)).ToList();
+        var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree, i.Verdict?.Pass == false ? PointStatus.Fail : PointStatus.Pass)).ToList();
         sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(DiagramSpace.UPrimeVPrime, pts, spec, "Batch spread (CIE 1976 u′v′)")), "locus", "batch chromaticity spread"));
         sb.Append("<div class=\"grid\">");
         foreach (var (field, title) in new[] { ("cct.kelvin", "CCT (K)"), ("cct.duv", "Duv"), ("cri.ra", "Ra"), ("fidelity.rf", "Rf") })
         {
-            var values = ok.Select(i => AssessmentFields.Get(i.Result!, field) ?? double.NaN).Where(double.IsFinite).ToArray();
+            var values = ok.Select(i => ResultFields.Get(i.Assessment!, field) ?? double.NaN).Where(double.IsFinite).ToArray();
             sb.Append(InlineSvg(800, 500, (cv, z) => Histogram.Draw(cv, z, values, title), "hist-" + field.Replace('.', '-'), "histogram of " + title));
         }
         sb.Append("</div>");
@@ -243,51 +243,20 @@ public static class HtmlReport
         foreach (var it in items.Take(TableLimit))
         {
             k++;
-            string id = k <= DetailLimit && it.Result is not null ? $"<a href=\"#unit-{k}\">{E(it.Record.Name)}</a>" : E(it.Record.Name);
-            if (it.Result is { } a)
-                sb.Append(Inv, $"<tr><td class=\"t\">{id}</td><td class=\"t\">{E(it.Location)}</td><td class=\"t {it.Status}\">{it.Status}</td><td>{F(a.Cct.CctKelvin, "0")}</td><td>{F(a.Cct.Duv, "+0.0000;-0.0000;0")}</td><td>{F(a.Cri?.Ra, "0.0")}</td><td>{F(a.Cri?.R9, "0.0")}</td><td>{F(a.Fidelity?.Rf, "0.0")}</td><td>{F(a.Fidelity?.Rg, "0.0")}</td><td>{F(it.Verdict!.StepsFromTarget, "0.0")}</td><td class=\"t\">{E(string.Join(", ", it.Verdict.Criteria.Where(c => !c.Pass).Select(c => c.Criterion)))}</td></tr>");
+            string id = k <= DetailLimit && it.Assessment is not null ? $"<a href=\"#unit-{k}\">{E(it.Record.Name)}</a>" : E(it.Record.Name);
+            if (it.Assessment is { } a)
+                sb.Append(Inv, $"<tr><td class=\"t\">{id}</td><td class=\"t\">{E(it.Record.Location)}</td><td class=\"t {it.Status}\">{it.Status}</td><td>{F(a.Cct.CctKelvin, "0")}</td><td>{F(a.Cct.Duv, "+0.0000;-0.0000;0")}</td><td>{F(a.Cri?.Ra, "0.0")}</td><td>{F(a.Cri?.R9, "0.0")}</td><td>{F(a.Fidelity?.Rf, "0.0")}</td><td>{F(a.Fidelity?.Rg, "0.0")}</td><td>{F(it.Verdict?.StepsFromTarget, "0.0")}</td><td class=\"t\">{E(string.Join(", ", (it.Verdict?.Criteria ?? []).Where(c => !c.Pass).Select(c => c.Criterion)))}</td></tr>");
             else
-                sb.Append(Inv, $"<tr><td class=\"t\">{id}</td><td class=\"t\">{E(it.Location)}</td><td class=\"t error\">error</td><td colspan=\"7\"></td><td class=\"t\">{E(it.Record.Error!.ToString())}</td></tr>");
+                sb.Append(Inv, $"<tr><td class=\"t\">{id}</td><td class=\"t\">{E(it.Record.Location)}</td><td class=\"t error\">error</td><td colspan=\"7\"></td><td class=\"t\">{E(it.Error?.ToString() ?? "")}</td></tr>");
         }
         sb.Append("</table><h2>Unit detail</h2>");
         k = 0;
         foreach (var it in items.Take(DetailLimit))
         {
             k++;
-            if (it.Result is { } a) Detail(sb, a, it.Record, spec, k);
+            if (it.Assessment is { } a) Detail(sb, a, it.Record, spec, k);
         }
         sb.Append("</main></body></html>");
         return sb.ToString();
-    }
-}
-
-/// <summary>A simple histogram.</summary>
-public static class Histogram
-{
-    /// <summary>Draws a histogram of values.</summary>
-    /// <param name="canvas">Canvas.</param>
-    /// <param name="size">Size.</param>
-    /// <param name="values">Values.</param>
-    /// <param name="title">Quantity name.</param>
-    public static void Draw(SkiaSharp.SKCanvas canvas, SkiaSharp.SKSize size, IReadOnlyList<double> values, string title)
-    {
-        ArgumentNullException.ThrowIfNull(canvas);
-        ArgumentNullException.ThrowIfNull(values);
-        float s = Math.Max(0.8f, Math.Min(size.Width / 700f, size.Height / 440f));
-        Style.Text(canvas, title, 20 * s, 30 * s, 16 * s, Style.Ink, bold: true);
-        if (values.Count == 0) { Style.Text(canvas, "no values", 20 * s, 60 * s, 13 * s, Style.Muted); return; }
-        double min = values.Min(), max = values.Max();
-        if (max - min < 1e-12) { min -= 0.5; max += 0.5; }
-        int nb = Math.Clamp((int)Math.Sqrt(values.Count), 5, 40);
-        var counts = new int[nb];
-        foreach (var v in values) counts[Math.Min(nb - 1, (int)((v - min) / (max - min) * nb))]++;
-        var m = new AxisMapping(new SkiaSharp.SKRect(80 * s, 45 * s, size.Width - 20 * s, size.Height - 60 * s), min, max, 0, counts.Max() * 1.1);
-        m.DrawAxes(canvas, title, "count", s, "G5", "0");
-        using var fill = Style.Fill(Style.Pass);
-        for (int i = 0; i < nb; i++)
-        {
-            double a = min + i * (max - min) / nb, b = a + (max - min) / nb;
-            canvas.DrawRect(new SkiaSharp.SKRect(m.Px(a) + 1, m.Py(counts[i]), m.Px(b) - 1, m.Py(0)), fill);
-        }
     }
 }

@@ -3,6 +3,7 @@ using System.Text;
 using System.Text.Json;
 using Lumen.Cli;
 using Lumen.Spectra;
+using Lumen.Synthetic;
 
 namespace Lumen.Cli.Tests;
 
@@ -28,7 +29,7 @@ public class BatchCliTests
         {
             string results = Path.Combine(dir, "r.csv"), summary = Path.Combine(dir, "s.json");
             var (code, _, stderr) = CliTests.Run("", "batch", Example("quillfern-dl30-lot-A17.csv"), "--spec", Example("spec-dl30.json"), "--out", results, "--summary", summary);
-            Assert.Equal(ExitCodes.UsageOrInputError, code);
+            Assert.Equal(ExitCodes.InputErrors, code);
             foreach (var loc in new[] { ":10:23:", ":22:33:", ":36:43:", ":61:" }) Assert.Contains(loc, stderr, StringComparison.Ordinal);
             var lines = File.ReadAllLines(results);
             Assert.Equal(241, lines.Length);
@@ -66,7 +67,7 @@ public class BatchCliTests
             var sub = Path.Combine(dir, "sub");
             Directory.CreateDirectory(sub);
             File.WriteAllText(Path.Combine(sub, "bb.csv"), sb.ToString());
-            File.WriteAllText(Path.Combine(dir, "pass.json"), """{"name": "bb", "target": {"cct": 2905, "duv": 0}, "chromaticity": {"duvRadius": 0.003}, "limits": [{"field": "cri.ra", "min": 95}]}""");
+            File.WriteAllText(Path.Combine(dir, "pass.json"), """{"name": "bb", "target": {"cct": 2905, "duv": 0}, "chromaticity": {"uPrimeVPrimeRadius": 0.003}, "limits": [{"field": "cri.ra", "min": 95}]}""");
             File.WriteAllText(Path.Combine(dir, "fail.json"), """{"name": "bb", "target": {"nominalCct": 4000}, "chromaticity": {"quadrangle": true}}""");
             var (ok, stdout, _) = CliTests.Run("", "batch", dir, "--spec", Path.Combine(dir, "pass.json"));
             Assert.Equal(ExitCodes.Success, ok);
@@ -127,7 +128,7 @@ public class BatchEqualsOneByOneTests
                 var row = doc.RootElement[i];
                 Assert.Equal(records[i].Name, row.GetProperty("id").GetString());
                 if (records[i].Spectrum is null) { Assert.Equal("error", row.GetProperty("status").GetString()); continue; }
-                var a = Lumen.Assessment.Assessor.Assess(records[i].Spectrum!);
+                var a = Lumen.Analysis.Assessor.Assess(records[i].Spectrum!);
                 Assert.Equal(a.Cct.CctKelvin, row.GetProperty("result").GetProperty("cctKelvin").GetDouble());
                 Assert.Equal(a.Cri!.Ra, row.GetProperty("result").GetProperty("ra").GetDouble());
             }

@@ -79,7 +79,7 @@ public class CliTests
         Assert.True(doc.RootElement[2].TryGetProperty("cri", out _));
         Assert.False(doc.RootElement[2].TryGetProperty("fidelity", out _));
         var (bad, _, err) = Run("", ["analyze", "--metrics", "cri,sparkle", .. ExampleFiles()]);
-        Assert.Equal(ExitCodes.UsageOrInputError, bad);
+        Assert.Equal(ExitCodes.UsageError, bad);
         Assert.Contains("sparkle", err, StringComparison.Ordinal);
     }
 
@@ -120,14 +120,14 @@ public class CliTests
     }
 
     [Fact]
-    public void Bad_input_exits_2_with_file_line_column_on_stderr_and_keeps_the_good_columns()
+    public void Bad_input_exits_3_with_file_line_column_on_stderr_and_keeps_the_good_columns()
     {
         var path = Path.Combine(Path.GetTempPath(), $"lumen-bad-{Guid.NewGuid():N}.csv");
         File.WriteAllText(path, "wl,good,bad\n400,1,1\n410,2,abc\n420,3,3\n");
         try
         {
             var (code, stdout, stderr) = Run("", "analyze", path, "--format", "csv");
-            Assert.Equal(ExitCodes.UsageOrInputError, code);
+            Assert.Equal(ExitCodes.InputErrors, code);
             Assert.Contains($"{path}:3:3:", stderr, StringComparison.Ordinal);
             Assert.Contains("good,", stdout, StringComparison.Ordinal);
             Assert.Contains(",error,", stdout, StringComparison.Ordinal);

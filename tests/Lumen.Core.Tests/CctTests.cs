@@ -182,7 +182,7 @@ internal sealed class BruteForceLocus
 
     public BruteForceLocus()
     {
-        var t = CieTables.ColourMatchingFunctions(Observer.Cie1931TwoDegree);
+        var t = CieTables.ColorMatchingFunctions(Observer.Cie1931TwoDegree);
         _x = t.Column("x_bar").ToArray(); _y = t.Column("y_bar").ToArray(); _z = t.Column("z_bar").ToArray();
         _start = t.StartNm;
     }

@@ -58,13 +58,13 @@ public class CieDataTests
         // Source: CIE 018:2019 Table 6 / ISO/CIE 11664-1:2019 Table 2 (range stated in the dataset metadata).
         foreach (var obs in new[] { Observer.Cie1931TwoDegree, Observer.Cie1964TenDegree })
         {
-            var t = CieTables.ColourMatchingFunctions(obs);
+            var t = CieTables.ColorMatchingFunctions(obs);
             Assert.Equal(360, t.StartNm);
             Assert.Equal(830, t.EndNm);
             Assert.Equal(1, t.StepNm);
         }
         // CIE validation value: sample row 479 nm of the 1931 table is 0.1042979, 0.1334528, 0.8566193.
-        var cmf = CieTables.ColourMatchingFunctions(Observer.Cie1931TwoDegree);
+        var cmf = CieTables.ColorMatchingFunctions(Observer.Cie1931TwoDegree);
         Assert.Equal(0.1334528, cmf.At("y_bar", 479), 12);
     }
 }

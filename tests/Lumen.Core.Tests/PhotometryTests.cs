@@ -1,9 +1,10 @@
-using Lumen.Assessment;
+using Lumen.Analysis;
 using Lumen.Blackbody;
 using Lumen.Cie;
 using Lumen.Descriptors;
 using Lumen.Photometry;
 using Lumen.Spectra;
+using Lumen.Synthetic;
 
 namespace Lumen.Core.Tests;
 
@@ -57,7 +58,7 @@ public class PhotometryTests
         var v = Enumerable.Repeat(0.01, 471).ToArray();
         var p = Photometer.Compute(new RegularSamples(360, 1, v, "flat"), SpectralUnit.IrradianceWattsPerSquareMetreNm);
         double sumV = 0;
-        foreach (var x in CieTables.Load("luminous_efficiency_photopic").Column("V")) sumV += x;
+        foreach (var x in CieTables.PhotopicLuminousEfficiency.Column("V")) sumV += x;
         Assert.Equal(683.002 * 0.01 * sumV, p.Photometric!.Value, 6);
         Assert.Equal(PhotometricQuantity.IlluminanceLux, p.Quantity);
         Assert.Equal(0.01 * 471, p.Radiometric!.Value, 9);
@@ -80,7 +81,7 @@ public class PhotometryTests
     public void D65_has_DER_1_and_EDI_equal_to_its_illuminance()
     {
         // Source: CIE S 026 by definition (ids s026.mDER.D65 = 1, s026.mEDI.D65_100lx = 100).
-        var d65 = CieTables.Load("illuminant_D65");
+        var d65 = CieTables.IlluminantD65;
         var v = Enumerable.Range(0, 401).Select(i => d65.At("D65", 380 + i)).ToArray();
         var raw = new RegularSamples(380, 1, v, "D65");
         double ev = Photometer.Compute(raw, SpectralUnit.IrradianceWattsPerSquareMetreNm).Photometric!.Value;
@@ -97,8 +98,8 @@ public class PhotometryTests
     {
         // Independent reference written here from the raw CIE tables (no published value was at hand in
         // shared/reference; it comes to 0.4957). Also a property: warm light has a melanopic DER well below 1.
-        var a = CieTables.Load("illuminant_A"); var d = CieTables.Load("illuminant_D65");
-        var act = CieTables.Load("alpha_opic_action_spectra"); var vt = CieTables.Load("luminous_efficiency_photopic");
+        var a = CieTables.IlluminantA; var d = CieTables.IlluminantD65;
+        var act = CieTables.AlphaOpicActionSpectra; var vt = CieTables.PhotopicLuminousEfficiency;
         double Ratio(CieTable t, string c)
         {
             double m = 0, y = 0;
@@ -120,7 +121,7 @@ public class PhotometryTests
     {
         // The table prints 3–6 decimals, so the rhodopic maximum 1 spans 506–508 nm: check that the published peak
         // wavelength holds the maximum value 1.
-        var t = CieTables.Load("alpha_opic_action_spectra");
+        var t = CieTables.AlphaOpicActionSpectra;
         double max = 0;
         foreach (var x in t.Column(column)) max = Math.Max(max, x);
         Assert.Equal(1.0, max, 9);
@@ -284,7 +285,7 @@ public class BlackbodyTests
     [Fact]
     public void Colour_names_are_plain_words()
     {
-        Assert.Equal("warm white", Radiator.ColourName(3000));
-        Assert.Equal("daylight white", Radiator.ColourName(6500));
+        Assert.Equal("warm white", Radiator.ColorName(3000));
+        Assert.Equal("daylight white", Radiator.ColorName(6500));
     }
 }

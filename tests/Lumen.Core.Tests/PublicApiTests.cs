@@ -34,22 +34,46 @@ public class PublicApiTests
     private static string Kind(Type t) =>
         t.IsEnum ? "enum" : t.IsValueType ? "struct" : t.IsInterface ? "interface" : t.IsAbstract && t.IsSealed ? "static class" : "class";
 
+    private static readonly NullabilityInfoContext Nullability = new();
+
     private static string Describe(MemberInfo m) => m switch
     {
-        MethodInfo mi => $"{Name(mi.ReturnType)} {mi.Name}({string.Join(", ", mi.GetParameters().Select(p => Name(p.ParameterType)))})",
-        ConstructorInfo ci => $".ctor({string.Join(", ", ci.GetParameters().Select(p => Name(p.ParameterType)))})",
-        PropertyInfo pi => $"{Name(pi.PropertyType)} {pi.Name} {{ {(pi.GetMethod?.IsPublic == true ? "get; " : "")}{(pi.SetMethod?.IsPublic == true ? "set; " : "")}}}",
-        FieldInfo fi => $"{(fi.IsLiteral ? "const " : fi.IsStatic ? "static " : "")}{Name(fi.FieldType)} {fi.Name}",
+        MethodInfo mi => $"{Name(Nullability.Create(mi.ReturnParameter))} {mi.Name}({Params(mi.GetParameters())})",
+        ConstructorInfo ci => $".ctor({Params(ci.GetParameters())})",
+        PropertyInfo pi => $"{Name(Nullability.Create(pi))} {pi.Name} {{ {(pi.GetMethod?.IsPublic == true ? "get; " : "")}{Setter(pi)}}}",
+        FieldInfo fi => $"{(fi.IsLiteral ? "const " : fi.IsStatic ? "static " : "")}{Name(Nullability.Create(fi))} {fi.Name}",
         Type nt => $"nested {nt.Name}",
         _ => m.ToString() ?? m.Name,
     };
 
-    private static string Name(Type t)
+    private static string Params(ParameterInfo[] ps) => string.Join(", ", ps.Select(p => Name(Nullability.Create(p))));
+
+    // "init" for init-only setters (marked with the IsExternalInit modifier), "set" for ordinary ones.
+    private static string Setter(PropertyInfo pi) =>
+        pi.SetMethod?.IsPublic != true ? ""
+        : pi.SetMethod.ReturnParameter.GetRequiredCustomModifiers().Contains(typeof(System.Runtime.CompilerServices.IsExternalInit)) ? "init; " : "set; ";
+
+    // Type names with nullability: reference types annotated nullable get "?", Nullable<T> prints as T?.
+    private static string Name(NullabilityInfo n)
     {
-        if (t.IsByRef) return Name(t.GetElementType()!) + "&";
-        if (t.IsArray) return Name(t.GetElementType()!) + "[]";
+        var t = n.Type;
+        if (t.IsByRef) return Plain(t.GetElementType()!) + "&";
+        if (Nullable.GetUnderlyingType(t) is { } u) return Plain(u) + "?";
+        string q = !t.IsValueType && n.ReadState == NullabilityState.Nullable ? "?" : "";
+        if (t.IsArray) return (n.ElementType is { } e ? Name(e) : Plain(t.GetElementType()!)) + "[]" + q;
+        if (!t.IsGenericType) return t.Name + q;
+        var baseName = t.Name[..t.Name.IndexOf('`', StringComparison.Ordinal)];
+        var args = n.GenericTypeArguments.Length == t.GetGenericArguments().Length
+            ? n.GenericTypeArguments.Select(Name)
+            : t.GetGenericArguments().Select(Plain);
+        return $"{baseName}<{string.Join(", ", args)}>{q}";
+    }
+
+    private static string Plain(Type t)
+    {
+        if (t.IsArray) return Plain(t.GetElementType()!) + "[]";
         if (!t.IsGenericType) return t.Name;
         var n = t.Name[..t.Name.IndexOf('`', StringComparison.Ordinal)];
-        return $"{n}<{string.Join(", ", t.GetGenericArguments().Select(Name))}>";
+        return $"{n}<{string.Join(", ", t.GetGenericArguments().Select(Plain))}>";
     }
 }

@@ -1,17 +1,18 @@
 using System.Globalization;
-using Lumen.Assessment;
+using Lumen.Analysis;
 using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Rendition;
 using Lumen.Spectra;
 using Lumen.Temperature;
+using Lumen.Synthetic;
 
 namespace Lumen.Core.Tests;
 
 /// <summary>CIE 13.3, CIE 224 and TM-30 against published values (reference checks) and properties.</summary>
 public class RenditionTests
 {
-    private static Spectrum Fl(string name) => CieTables.Load("illuminants_FL_5nm").ToSpectrum(name);
+    private static Spectrum Fl(string name) => CieTables.FluorescentIlluminants5Nm.ToSpectrum(name);
 
     internal static Spectrum DataFile(string file)
     {
@@ -84,7 +85,7 @@ public class RenditionTests
     public void Ra_of_illuminant_A_is_100()
     {
         // Source: colour-science test_cri (id cri.Ra.A.library) 99.996; CIE 13.3 by construction (reference = itself).
-        var r = Rendition(CieTables.Load("illuminant_A").ToSpectrum("A")).Cri;
+        var r = Rendition(CieTables.IlluminantA.ToSpectrum("A")).Cri;
         Assert.InRange(r.Ra, 99.9, 100.0);
     }
 
@@ -169,7 +170,7 @@ public class RenditionTests
     {
         // Source: CIE 15 §3.1 — D65 is CIE daylight at 6500 × 1.4388/1.4380 K with M1, M2 rounded to 3 decimals
         // (methods note cri.md §2.1: reproduces the table to ±0.01). Compared at the 5 nm nodes, 300–830 nm.
-        var d65 = CieTables.Load("illuminant_D65");
+        var d65 = CieTables.IlluminantD65;
         var computed = ReferenceIlluminants.Daylight(6500 * 1.4388 / 1.4380, 300, 5, 107);
         for (int k = 0; k < 107; k++) Assert.InRange(computed[k], d65.At("D65", 300 + 5 * k) - 0.011, d65.At("D65", 300 + 5 * k) + 0.011);
     }

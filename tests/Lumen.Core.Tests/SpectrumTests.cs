@@ -1,10 +1,11 @@
 using FsCheck;
 using FsCheck.Xunit;
-using Lumen.Assessment;
+using Lumen.Analysis;
 using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Spectra;
 using Lumen.Temperature;
+using Lumen.Synthetic;
 
 namespace Lumen.Core.Tests;
 
@@ -42,18 +43,18 @@ public class SpectrumTests
     public void Sprague_returns_the_nodes_and_CIE_1nm_FL11_colorimetry()
     {
         // Source: methods note colorimetry.md §1.4 [NUM] — FL11 5 nm sum y = 0.37692, Sprague→1 nm y = 0.37691.
-        var fl11 = CieTables.Load("illuminants_FL_5nm").ToSpectrum("FL11");
+        var fl11 = CieTables.FluorescentIlluminants5Nm.ToSpectrum("FL11");
         var s = Resampler.SpragueToOneNm(fl11.FirstNm, 5, fl11.Values);
         Assert.Equal(401, s.Values.Length);
         for (int i = 0; i < fl11.Count; i++) Assert.Equal(fl11.Values[i], s.Values[i * 5], 9);
         var c = Colorimeter.Relative(s, Observer.Cie1931TwoDegree).Chromaticity;
-        Assert.InRange(c.Y, 0.37691 - 2e-5, 0.37691 + 2e-5);
+        Assert.InRange(c.SmallY, 0.37691 - 2e-5, 0.37691 + 2e-5);
     }
 
     [Fact]
     public void Aligned_1nm_and_5nm_grids_are_summed_at_their_own_step_and_others_interpolated()
     {
-        var five = CieTables.Load("illuminants_FL_5nm").ToSpectrum("FL2");
+        var five = CieTables.FluorescentIlluminants5Nm.ToSpectrum("FL2");
         Assert.Equal(5, Resampler.ForCieSums(five).StepNm);
         var shifted = new Spectrum(five.WavelengthsNm.ToArray().Select(w => w + 2.5).ToArray(), five.Values, SpectralUnit.Relative, "s", Origin);
         var r = Resampler.ForCieSums(shifted);
@@ -67,7 +68,7 @@ public class SpectrumTests
     public void Fine_irregular_grid_gives_the_same_chromaticity_as_the_1nm_table()
     {
         // Property: an array-spectrometer grid (0.7 nm pixels) of a smooth source gives the same chromaticity as 1 nm data.
-        var a = CieTables.Load("illuminant_A").ToSpectrum("A");
+        var a = CieTables.IlluminantA.ToSpectrum("A");
         var pix = new List<double>();
         for (double w = 360.2; w < 830; w += 0.7) pix.Add(w);
         var fine = new Spectrum(pix.ToArray(), pix.Select(a.ValueAt).ToArray(), SpectralUnit.Relative, "fine", Origin);
@@ -79,7 +80,7 @@ public class SpectrumTests
     [Fact]
     public void Spectrum_not_covering_380_to_780_is_computed_with_a_warning_naming_the_gap()
     {
-        var d65 = CieTables.Load("illuminant_D65").ToSpectrum("D65");
+        var d65 = CieTables.IlluminantD65.ToSpectrum("D65");
         var w = d65.WavelengthsNm.ToArray().Where(x => x >= 400 && x <= 730).ToArray();
         var cut = new Spectrum(w, w.Select(d65.ValueAt).ToArray(), SpectralUnit.Relative, "cut", Origin);
         var a = Assessor.Assess(cut);
@@ -101,11 +102,11 @@ public class SpectrumTests
     public bool Cct_and_chromaticity_are_invariant_to_scaling_the_spectrum(PositiveInt k)
     {
         // Property: relative colorimetry does not depend on the spectrum's scale.
-        var fl2 = CieTables.Load("illuminants_FL_5nm").ToSpectrum("FL2");
+        var fl2 = CieTables.FluorescentIlluminants5Nm.ToSpectrum("FL2");
         double factor = k.Get * 0.37;
         var a = Assessor.Assess(fl2);
         var b = Assessor.Assess(fl2.Scale(factor));
-        return Math.Abs(a.Cct.CctKelvin - b.Cct.CctKelvin) < 1e-6 && Math.Abs(a.Chromaticity.X - b.Chromaticity.X) < 1e-12;
+        return Math.Abs(a.Cct.CctKelvin - b.Cct.CctKelvin) < 1e-6 && Math.Abs(a.Chromaticity.SmallX - b.Chromaticity.SmallX) < 1e-12;
     }
 
     [Fact]

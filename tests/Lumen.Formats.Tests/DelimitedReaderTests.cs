@@ -1,12 +1,12 @@
 using System.Text.Json;
-using Lumen.Assessment;
+using Lumen.Analysis;
 using Lumen.Spectra;
 
 namespace Lumen.Formats.Tests;
 
 public class DelimitedReaderTests
 {
-    private static IReadOnlyList<SpectrumRecord> Read(string text, string source = "in.csv") =>
+    private static IReadOnlyList<InputRecord> Read(string text, string source = "in.csv") =>
         DelimitedSpectrumReader.Read(new StringReader(text), source, "in");
 
     private static string Rows(char d, string header = "") =>
@@ -146,9 +146,9 @@ public class DelimitedReaderTests
     public void Json_writer_emits_the_documented_fields_and_error_records()
     {
         var recs = Read("wl,lamp,bad\n" + string.Join("\n", Enumerable.Range(380, 401).Select(w => $"{w},1,{(w == 500 ? "x" : "1")}")));
-        var items = recs.Select(r => AnalysisItem.From(r, AssessmentOptions.Default)).ToList();
+        var items = recs.Select(r => RecordOutcome.Of(r, AssessmentOptions.Default)).ToList();
         var sw = new StringWriter();
-        ResultWriters.WriteJson(items, sw);
+        AnalysisWriter.Write(items, OutputFormat.Json, sw);
         using var doc = JsonDocument.Parse(sw.ToString());
         var a = doc.RootElement[0];
         foreach (var f in new[] { "name", "source", "observer", "tristimulus", "chromaticity", "cct", "warnings", "provenance" })
@@ -168,14 +168,14 @@ public class DelimitedReaderTests
     public void Csv_writer_writes_one_row_per_record_with_documented_columns()
     {
         var recs = Read("wl,a,b\n400,1,1\n410,2,x\n420,3,3\n");
-        var items = recs.Select(r => AnalysisItem.From(r, AssessmentOptions.Default)).ToList();
+        var items = recs.Select(r => RecordOutcome.Of(r, AssessmentOptions.Default)).ToList();
         var sw = new StringWriter();
-        ResultWriters.WriteCsv(items, sw);
+        AnalysisWriter.Write(items, OutputFormat.Csv, sw);
         var lines = sw.ToString().TrimEnd().Split('\n');
         Assert.Equal(3, lines.Length);
-        Assert.Equal(string.Join(',', ResultWriters.CsvColumns), lines[0].TrimEnd('\r'));
-        Assert.Equal(ResultWriters.CsvColumns.Count, SplitCsv(lines[2].TrimEnd('\r')).Length);
-        Assert.Equal(ResultWriters.CsvColumns.Count, SplitCsv(lines[1].TrimEnd('\r')).Length);
+        Assert.Equal(string.Join(',', AnalysisColumns.Csv.Names), lines[0].TrimEnd('\r'));
+        Assert.Equal(AnalysisColumns.Csv.Columns.Count, SplitCsv(lines[2].TrimEnd('\r')).Length);
+        Assert.Equal(AnalysisColumns.Csv.Columns.Count, SplitCsv(lines[1].TrimEnd('\r')).Length);
         Assert.Contains(",error,", lines[2], StringComparison.Ordinal);
     }
 
@@ -183,9 +183,9 @@ public class DelimitedReaderTests
     public void Csv_has_flat_rendition_columns_filled_for_results()
     {
         var recs = Read("wl,eq\n" + string.Join("\n", Enumerable.Range(380, 401).Select(w => $"{w},1")));
-        var items = recs.Select(r => AnalysisItem.From(r, AssessmentOptions.Default)).ToList();
+        var items = recs.Select(r => RecordOutcome.Of(r, AssessmentOptions.Default)).ToList();
         var sw = new StringWriter();
-        ResultWriters.WriteCsv(items, sw);
+        AnalysisWriter.Write(items, OutputFormat.Csv, sw);
         var lines = sw.ToString().TrimEnd().Split('\n');
         var header = SplitCsv(lines[0].TrimEnd('\r'));
         var row = SplitCsv(lines[1].TrimEnd('\r'));
@@ -224,6 +224,6 @@ public class DelimitedReaderTests
     [Fact]
     public void Csv_quotes_fields_with_commas_and_quotes()
     {
-        Assert.Equal("\"a,\"\"b\"\"\"", ResultWriters.Csv("a,\"b\""));
+        Assert.Equal("\"a,\"\"b\"\"\"", Csv.Quote("a,\"b\""));
     }
 }

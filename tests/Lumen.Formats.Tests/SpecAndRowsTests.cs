@@ -1,6 +1,6 @@
 using System.Text;
 using System.Text.Json;
-using Lumen.Assessment;
+using Lumen.Analysis;
 using Lumen.Cie;
 using Lumen.Conformance;
 
@@ -26,7 +26,7 @@ public class SpecReaderTests
     }
 
     [Theory]
-    [InlineData("""{"target": {"x": 0.4338, "y": 0.4030}, "chromaticity": {"duvRadius": 0.003}}""", ToleranceKind.UPrimeVPrimeRadius)]
+    [InlineData("""{"target": {"x": 0.4338, "y": 0.4030}, "chromaticity": {"uPrimeVPrimeRadius": 0.003}}""", ToleranceKind.UPrimeVPrimeRadius)]
     [InlineData("""{"target": {"cct": 3000, "duv": 0.0}, "chromaticity": {"ellipseSteps": 5}}""", ToleranceKind.EllipseSteps)]
     [InlineData("""{"target": {"nominalCct": 4000, "edition": "2008"}, "chromaticity": {"quadrangle": true}}""", ToleranceKind.Quadrangle)]
     public void Every_target_and_tolerance_form_reads(string json, ToleranceKind kind)
@@ -34,6 +34,17 @@ public class SpecReaderTests
         var spec = Read(json, out var errors);
         Assert.Empty(errors);
         Assert.Equal(kind, spec!.Tolerance.Kind);
+    }
+
+    [Fact]
+    public void Deprecated_duvRadius_key_still_reads_with_a_warning_naming_the_new_key()
+    {
+        var spec = Read("{\n  \"target\": {\"x\": 0.4338, \"y\": 0.4030},\n  \"chromaticity\": {\"duvRadius\": 0.003}\n}", out var errors);
+        Assert.Empty(errors);
+        Assert.Equal(ToleranceKind.UPrimeVPrimeRadius, spec!.Tolerance.Kind);
+        var w = Assert.Single(spec.Warnings);
+        Assert.Contains("uPrimeVPrimeRadius", w, StringComparison.Ordinal);
+        Assert.Contains(":3:", w, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -83,16 +94,16 @@ public class AssessmentFieldTests
     [Fact]
     public void Every_field_path_exists_in_the_analyze_JSON_with_the_same_value()
     {
-        var s = CieTables.Load("illuminants_FL_5nm").ToSpectrum("FL2").WithUnit(Lumen.Spectra.SpectralUnit.IrradianceWattsPerSquareMetreNm);
+        var s = CieTables.FluorescentIlluminants5Nm.ToSpectrum("FL2").WithUnit(Lumen.Spectra.SpectralUnit.IrradianceWattsPerSquareMetreNm);
         var a = Assessor.Assess(s);
         var sw = new StringWriter();
-        ResultWriters.WriteJson([new AnalysisItem(new SpectrumRecord("t", 2, "FL2", s, null), a)], sw);
+        AnalysisWriter.Write([RecordOutcome.Of(new SpectrumRecord("t", 2, "FL2", s), AssessmentOptions.Default)], OutputFormat.Json, sw);
         using var doc = JsonDocument.Parse(sw.ToString());
         var root = doc.RootElement[0];
         int checkedCount = 0;
-        foreach (var path in AssessmentFields.Paths)
+        foreach (var path in ResultFields.Paths)
         {
-            double? expected = AssessmentFields.Get(a, path);
+            double? expected = ResultFields.Get(a, path);
             var el = Navigate(root, path);
             if (expected is null) { Assert.True(el is null || el.Value.ValueKind == JsonValueKind.Null, path); continue; }
             Assert.True(el is not null, $"{path} missing from JSON");

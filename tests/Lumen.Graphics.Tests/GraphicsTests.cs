@@ -1,12 +1,13 @@
 using System.Diagnostics;
 using System.Xml.Linq;
-using Lumen.Assessment;
+using Lumen.Analysis;
 using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Conformance;
 using Lumen.Formats;
 using Lumen.Spectra;
 using SkiaSharp;
+using Lumen.Synthetic;
 
 namespace Lumen.Graphics.Tests;
 
@@ -34,7 +35,7 @@ public class GraphicsTests
         var png = Render.Png(1200, 900, (c, z) => ChromaticityDiagram.Draw(c, z, options));
         var map = ChromaticityDiagram.Layout(options, size);
         using var bmp = Decode(png);
-        int px = (int)Math.Round(map.Px(a.X)), py = (int)Math.Round(map.Py(a.Y));
+        int px = (int)Math.Round(map.Px(a.SmallX)), py = (int)Math.Round(map.Py(a.SmallY));
         bool dark = false;
         for (int dx = -1; dx <= 1; dx++)
             for (int dy = -1; dy <= 1; dy++)
@@ -52,7 +53,7 @@ public class GraphicsTests
     public void D65_light_and_a_neutral_sample_under_D65_render_neutral()
     {
         // IEC 61966-2-1: D65 is the sRGB white, so its swatch colour is neutral (R = G = B).
-        var d65 = Srgb.LightColour(Chromaticity.FromXy(0.3127, 0.3290));
+        var d65 = Srgb.LightColor(Chromaticity.FromXy(0.3127, 0.3290));
         Assert.Equal(d65.R, d65.G);
         Assert.Equal(d65.G, d65.B);
         Assert.Equal(255, d65.R);
@@ -75,9 +76,9 @@ public class GraphicsTests
     [Fact]
     public void Swatch_of_D65_shows_a_neutral_patch_for_the_light()
     {
-        var d65 = CieTables.Load("illuminant_D65").ToSpectrum("D65");
+        var d65 = CieTables.IlluminantD65.ToSpectrum("D65");
         var a = Assessor.Assess(d65);
-        using var bmp = Decode(Render.Png(1200, 520, (c, z) => SwatchPlot.Draw(c, z, d65, a.Chromaticity2Degree, a.Cct.CctKelvin, a.Fidelity)));
+        using var bmp = Decode(Render.Png(1200, 520, (c, z) => SwatchPlot.Draw(c, z, d65, a)));
         var patch = bmp.GetPixel(130, 140);
         Assert.InRange(Math.Abs(patch.Red - patch.Green), 0, 3);
         Assert.InRange(Math.Abs(patch.Green - patch.Blue), 0, 6);
@@ -109,15 +110,15 @@ public class GraphicsTests
     [Fact]
     public void Spectrum_vector_and_swatch_render_without_error_in_both_formats()
     {
-        var fl2 = CieTables.Load("illuminants_FL_5nm").ToSpectrum("FL2");
+        var fl2 = CieTables.FluorescentIlluminants5Nm.ToSpectrum("FL2");
         var a = Assessor.Assess(fl2);
         foreach (var fmt in new[] { true, false })
         {
             Action<SKCanvas, SKSize>[] draws =
             [
-                (c, z) => SpectrumPlot.Draw(c, z, fl2, a.Cct.CctKelvin),
+                (c, z) => SpectrumPlot.Draw(c, z, fl2, a.Fidelity?.Reference),
                 (c, z) => VectorGraphic.Draw(c, z, a.Fidelity!, "FL2"),
-                (c, z) => SwatchPlot.Draw(c, z, fl2, a.Chromaticity2Degree, a.Cct.CctKelvin, a.Fidelity),
+                (c, z) => SwatchPlot.Draw(c, z, fl2, a),
             ];
             foreach (var d in draws)
             {
@@ -133,9 +134,9 @@ public class GraphicsTests
         var grid = SyntheticSpectra.Grid(380, 780, 5);
         var dark = new Spectrum(grid, new double[grid.Length], SpectralUnit.Relative, "dark", SpectrumOrigin.Generated("t"));
         var a = Assessor.Assess(dark);
-        Assert.True(Render.Png(800, 600, (c, z) => SpectrumPlot.Draw(c, z, dark, a.Cct.CctKelvin)).Length > 100);
-        Assert.True(Render.Png(800, 600, (c, z) => SwatchPlot.Draw(c, z, dark, a.Chromaticity2Degree, a.Cct.CctKelvin, a.Fidelity)).Length > 100);
-        var html = HtmlReport.Single([AnalysisItem.From(new SpectrumRecord("d.csv", 2, "dark", dark, null), AssessmentOptions.Default)], null);
+        Assert.True(Render.Png(800, 600, (c, z) => SpectrumPlot.Draw(c, z, dark, a.Fidelity?.Reference)).Length > 100);
+        Assert.True(Render.Png(800, 600, (c, z) => SwatchPlot.Draw(c, z, dark, a)).Length > 100);
+        var html = HtmlReport.Single([RecordOutcome.Of(new SpectrumRecord("d.csv", 2, "dark", dark), AssessmentOptions.Default)], null);
         Assert.Contains("undefined", html, StringComparison.Ordinal);
     }
 
@@ -144,8 +145,8 @@ public class GraphicsTests
     {
         var grid = SyntheticSpectra.Grid(380, 780, 5);
         var s = SyntheticSpectra.Blackbody(3000, grid, "<script>alert(1)</script>");
-        var rec = new SpectrumRecord("x.csv", 2, s.Name, s, null);
-        var html = HtmlReport.Single([AnalysisItem.From(rec, AssessmentOptions.Default)], null);
+        var rec = new SpectrumRecord("x.csv", 2, s.Name, s);
+        var html = HtmlReport.Single([RecordOutcome.Of(rec, AssessmentOptions.Default)], null);
         Assert.DoesNotContain("<script>", html, StringComparison.Ordinal);
         Assert.Contains("&lt;script&gt;", html, StringComparison.Ordinal);
         Assert.DoesNotContain("http://", html.Replace("http://www.w3.org", "", StringComparison.Ordinal), StringComparison.Ordinal);

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using Lumen.Spectra;
+using Lumen.Synthetic;
 
 /// <summary>
 /// Writes a production-tester style row file (invented data): unit_id, lot, then one 5 nm spectrum per row,

@@ -4,6 +4,7 @@ using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Spectra;
 using Lumen.Temperature;
+using Lumen.Synthetic;
 
 // Writes the bundled example data (an invented scenario; see examples/README.md).
 // Usage: dotnet run --project tools/Lumen.Examples -- [examples-folder]

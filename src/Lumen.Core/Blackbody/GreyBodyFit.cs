@@ -4,20 +4,6 @@ using Lumen.Spectra;
 
 namespace Lumen.Blackbody;
 
-/// <summary>Result of fitting a grey body to a measured spectrum.</summary>
-/// <param name="TemperatureKelvin">Best-fit temperature, K.</param>
-/// <param name="TemperatureLowKelvin">Lower end of the 95 % confidence interval, K.</param>
-/// <param name="TemperatureHighKelvin">Upper end of the 95 % confidence interval, K.</param>
-/// <param name="Scale">Fitted gain A (equal to the emissivity when the data are absolute radiance).</param>
-/// <param name="EmissivitySlopePer100Nm">Fitted relative emissivity slope per 100 nm (0 when not fitted).</param>
-/// <param name="RelativeResidual">RMS of the residuals divided by the RMS of the data.</param>
-/// <param name="Thermal">True when a grey body describes the data (positive gain and relative residual ≤ <see cref="GreyBodyFit.ThermalResidualLimit"/>).</param>
-/// <param name="BandFirstNm">First wavelength used.</param>
-/// <param name="BandLastNm">Last wavelength used.</param>
-/// <param name="Points">Number of samples used.</param>
-public sealed record GreyBodyFitResult(double TemperatureKelvin, double TemperatureLowKelvin, double TemperatureHighKelvin, double Scale,
-    double EmissivitySlopePer100Nm, double RelativeResidual, bool Thermal, double BandFirstNm, double BandLastNm, int Points);
-
 /// <summary>
 /// Least-squares fit of A·(1 + s·(λ − 560 nm)/100 nm)·L(λ, T) (a grey body, optionally with a slowly varying
 /// emissivity) to a measured spectrum.
@@ -36,7 +22,7 @@ public static class GreyBodyFit
     /// <summary>Fits the spectrum.</summary>
     /// <param name="spectrum">Measured spectrum (relative or absolute radiance).</param>
     /// <param name="fitEmissivitySlope">Also fit a linear emissivity slope.</param>
-    /// <returns>The fit.</returns>
+    /// <returns>The fit; for a spectrum with no signal (all zero) a result with NaN temperature and <see cref="GreyBodyFitResult.HasSignal"/> false.</returns>
     /// <exception cref="ArgumentException">Fewer than 5 samples with positive wavelength.</exception>
     public static GreyBodyFitResult Fit(Spectrum spectrum, bool fitEmissivitySlope = false)
     {
@@ -46,7 +32,8 @@ public static class GreyBodyFit
         int n = w.Length, p = fitEmissivitySlope ? 3 : 2;
         if (n < p + 2) throw new ArgumentException("Need more samples to fit a grey body.", nameof(spectrum));
         double scaleData = s.Max(Math.Abs);
-        if (scaleData == 0) scaleData = 1;
+        if (!(scaleData > 0) || !double.IsFinite(scaleData))
+            return new GreyBodyFitResult(double.NaN, double.NaN, double.NaN, 0, 0, double.NaN, false, w[0], w[^1], n); // no signal to fit
         for (int i = 0; i < n; i++) s[i] /= scaleData;
 
         double Rss(double t, out double a, out double slope)
@@ -118,7 +105,7 @@ public static class GreyBodyFit
         double varT;
         try { varT = sigma2 * (jac.TransposeThisAndMultiply(jac)).Inverse()[p - 1, p - 1]; }
         catch (ArgumentException) { varT = double.NaN; }
-        double half = StudentT.InvCDF(0, 1, n - p, 0.975) * Math.Sqrt(Math.Max(0, varT));
+        double half = double.IsFinite(varT) ? StudentT.InvCDF(0, 1, n - p, 0.975) * Math.Sqrt(Math.Max(0, varT)) : double.NaN;
         double rmsData = Math.Sqrt(s.Sum(x => x * x) / n);
         double rel = Math.Sqrt(rssBest / n) / rmsData;
         bool thermal = rel <= ThermalResidualLimit && gain > 0;

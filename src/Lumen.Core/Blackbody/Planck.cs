@@ -1,71 +1,5 @@
 namespace Lumen.Blackbody;
 
-/// <summary>Which value of the second radiation constant c2 a Planckian calculation uses.</summary>
-public enum C2Convention
-{
-    /// <summary>c2 = 1.4388 × 10⁻² m·K, the ITS-90 value CIE 15:2004/2018 prescribes for colorimetry (default).</summary>
-    Cie15Its90,
-
-    /// <summary>c2 = hc/k = 1.438 776 877… × 10⁻² m·K (CODATA 2018, exact since the 2019 SI).</summary>
-    Codata2018,
-}
-
-/// <summary>The constants a Planck evaluation needs.</summary>
-/// <param name="C1">First radiation constant c1 = 2πhc², W·m².</param>
-/// <param name="C2">Second radiation constant c2, m·K.</param>
-/// <param name="RefractiveIndex">Refractive index n of the medium (1 for colorimetry, CIE 15 App. E).</param>
-public readonly record struct PlanckConstants(double C1, double C2, double RefractiveIndex)
-{
-    /// <summary>Constants for a c2 convention, c1 from CODATA 2018, n = 1.</summary>
-    /// <param name="convention">The c2 convention.</param>
-    /// <returns>The constants.</returns>
-    public static PlanckConstants For(C2Convention convention) => new(
-        RadiationConstants.C1,
-        convention == C2Convention.Cie15Its90 ? RadiationConstants.C2Cie15 : RadiationConstants.C2,
-        1.0);
-
-    /// <summary>CIE colorimetric constants (c2 = 1.4388e-2 m·K).</summary>
-    public static PlanckConstants Cie15 => For(C2Convention.Cie15Its90);
-}
-
-/// <summary>Radiation constants derived from the exact SI values of h, c and k (CODATA 2018).</summary>
-/// <remarks>Methods note planck.md §2.1: deriving the constants in double precision reproduces the
-/// CODATA digits (c1 = 3.741 771 852e-16 W·m², c2 = 1.438 776 877e-2 m·K, b = 2.897 771 955e-3 m·K,
-/// σ = 5.670 374 419e-8 W·m⁻²·K⁻⁴).</remarks>
-public static class RadiationConstants
-{
-    /// <summary>Planck constant h, J·s (exact).</summary>
-    public const double PlanckJouleSeconds = 6.62607015e-34;
-
-    /// <summary>Speed of light in vacuum c, m/s (exact).</summary>
-    public const double SpeedOfLightMetresPerSecond = 299792458.0;
-
-    /// <summary>Boltzmann constant k, J/K (exact).</summary>
-    public const double BoltzmannJoulesPerKelvin = 1.380649e-23;
-
-    /// <summary>Second radiation constant used by CIE 15 for colorimetry, m·K.</summary>
-    public const double C2Cie15 = 1.4388e-2;
-
-    /// <summary>First radiation constant c1 = 2πhc², W·m².</summary>
-    public static readonly double C1 = 2 * Math.PI * PlanckJouleSeconds * SpeedOfLightMetresPerSecond * SpeedOfLightMetresPerSecond;
-
-    /// <summary>First radiation constant for spectral radiance c1L = 2hc², W·m²·sr⁻¹.</summary>
-    public static readonly double C1L = 2 * PlanckJouleSeconds * SpeedOfLightMetresPerSecond * SpeedOfLightMetresPerSecond;
-
-    /// <summary>Second radiation constant c2 = hc/k, m·K.</summary>
-    public static readonly double C2 = PlanckJouleSeconds * SpeedOfLightMetresPerSecond / BoltzmannJoulesPerKelvin;
-
-    /// <summary>Root of x = 5(1 − e^(−x)) (peak of spectral radiance per unit wavelength).</summary>
-    public const double WienX5 = 4.965114231744276;
-
-    /// <summary>Wien wavelength displacement constant b = c2/x5, m·K.</summary>
-    public static readonly double WienMetreKelvin = C2 / WienX5;
-
-    /// <summary>Stefan–Boltzmann constant σ = 2π⁵k⁴/(15h³c²), W·m⁻²·K⁻⁴.</summary>
-    public static readonly double StefanBoltzmann = 2 * Math.Pow(Math.PI, 5) * Math.Pow(BoltzmannJoulesPerKelvin, 4)
-        / (15 * Math.Pow(PlanckJouleSeconds, 3) * SpeedOfLightMetresPerSecond * SpeedOfLightMetresPerSecond);
-}
-
 /// <summary>Planck's law for a blackbody (Planckian radiator).</summary>
 public static class Planck
 {
@@ -109,7 +43,7 @@ public static class Planck
     /// <summary>exp(x) − 1 without cancellation for small x.</summary>
     /// <param name="x">Argument.</param>
     /// <returns>e^x − 1.</returns>
-    public static double Expm1(double x)
+    internal static double Expm1(double x)
     {
         if (Math.Abs(x) < 1e-5) return x + 0.5 * x * x + x * x * x / 6.0;
         return Math.Exp(x) - 1.0;

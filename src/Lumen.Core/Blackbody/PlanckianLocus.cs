@@ -2,15 +2,6 @@ using Lumen.Cie;
 
 namespace Lumen.Blackbody;
 
-/// <summary>A point of the Planckian locus in the CIE 1960 UCS with its derivatives with respect to mired.</summary>
-/// <param name="U">u of the Planckian radiator.</param>
-/// <param name="V">v of the Planckian radiator.</param>
-/// <param name="DuDm">du/dm, per mired (m = 10⁶/T).</param>
-/// <param name="DvDm">dv/dm, per mired.</param>
-/// <param name="D2uDm2">d²u/dm², per mired².</param>
-/// <param name="D2vDm2">d²v/dm², per mired².</param>
-public readonly record struct LocusPoint(double U, double V, double DuDm, double DvDm, double D2uDm2, double D2vDm2);
-
 /// <summary>
 /// The Planckian locus in the CIE 1960 UCS (u, v), from 500 K to 10⁶ K, for one c2 convention.
 /// </summary>
@@ -24,7 +15,7 @@ public readonly record struct LocusPoint(double U, double V, double DuDm, double
 /// which matches the exact locus to better than 1e-12 in u and v (see the tests), so that CCT solved on
 /// the table agrees with a brute-force search on the exact locus to far better than 0.01 K.</para>
 /// </remarks>
-public sealed class PlanckianLocus
+internal sealed class PlanckianLocus
 {
     /// <summary>Smallest tabulated mired (10⁶ K).</summary>
     public const double MinMired = 1.0;
@@ -48,7 +39,7 @@ public sealed class PlanckianLocus
     {
         Convention = convention;
         C2 = PlanckConstants.For(convention).C2;
-        var cmf = CieTables.ColourMatchingFunctions(Observer.Cie1931TwoDegree);
+        var cmf = CieTables.ColorMatchingFunctions(Observer.Cie1931TwoDegree);
         int n = cmf.Count;
         _wavelengthFactor = new double[n];
         _lambdaPow5Inv = new double[n];

@@ -2,19 +2,6 @@ using Lumen.Spectra;
 
 namespace Lumen.Blackbody;
 
-/// <summary>Approximations to Planck's law offered for comparison.</summary>
-public enum PlanckApproximation
-{
-    /// <summary>No approximation (Planck's law).</summary>
-    None,
-
-    /// <summary>Wien: L ≈ c1L·λ⁻⁵·exp(−c2/(λT)); always slightly low; good when λT ≪ c2.</summary>
-    Wien,
-
-    /// <summary>Rayleigh–Jeans: L ≈ c1L·T/(c2·λ⁴); always high; good only when λT ≫ c2.</summary>
-    RayleighJeans,
-}
-
 /// <summary>
 /// Blackbody and grey-body quantities: Wien peak, Stefan–Boltzmann exitance, net radiated power, spectral
 /// radiance over a band, and the classical approximations.
@@ -85,7 +72,7 @@ public static class Radiator
         if (!(temperatureKelvin > 0)) throw new ArgumentOutOfRangeException(nameof(temperatureKelvin));
         if (!(emissivity > 0 && emissivity <= 1)) throw new ArgumentOutOfRangeException(nameof(emissivity));
         if (!(fromNm > 0 && toNm > fromNm && stepNm > 0)) throw new ArgumentOutOfRangeException(nameof(stepNm), "Need 0 < from < to and a positive step.");
-        var w = SyntheticSpectra.Grid(fromNm, toNm, stepNm);
+        var w = WavelengthGrid.Regular(fromNm, toNm, stepNm);
         var v = w.Select(x => emissivity * RadianceNm(x, temperatureKelvin, PlanckApproximation.None)).ToArray();
         return new Spectrum(w, v, SpectralUnit.RadianceWattsPerSteradianSquareMetreNm, $"blackbody-{temperatureKelvin:0.###}K",
             SpectrumOrigin.Generated($"Planck's law, {temperatureKelvin} K, emissivity {emissivity}"));
@@ -94,7 +81,7 @@ public static class Radiator
     /// <summary>Plain words for the colour of light at a CCT (for people, not a standard classification).</summary>
     /// <param name="cctKelvin">CCT in K.</param>
     /// <returns>For example "warm white".</returns>
-    public static string ColourName(double cctKelvin) => cctKelvin switch
+    public static string ColorName(double cctKelvin) => cctKelvin switch
     {
         < 800 => "barely visible deep red (below about 800 K a hot body hardly glows)",
         < 1600 => "deep orange-red, like embers",

@@ -1,16 +1,5 @@
 namespace Lumen.Colorimetry;
 
-/// <summary>An 8-bit sRGB colour with a flag for colours that had to be clipped into the gamut.</summary>
-/// <param name="R">Red 0–255.</param>
-/// <param name="G">Green 0–255.</param>
-/// <param name="B">Blue 0–255.</param>
-/// <param name="Clipped">True when the colour lay outside the sRGB gamut or above white and was clipped.</param>
-public readonly record struct Rgb8(byte R, byte G, byte B, bool Clipped)
-{
-    /// <summary>CSS hex form, e.g. <c>#a1b2c3</c>.</summary>
-    public string Hex => $"#{R:x2}{G:x2}{B:x2}";
-}
-
 /// <summary>
 /// CIE XYZ to sRGB for display: Bradford chromatic adaptation from the scene white to D65, the IEC 61966-2-1
 /// matrix and transfer function.
@@ -89,7 +78,7 @@ public static class Srgb
     /// </summary>
     /// <param name="c">Chromaticity of the light.</param>
     /// <returns>The 8-bit colour; <see cref="Rgb8.Clipped"/> when saturated colours had to be clipped.</returns>
-    public static Rgb8 LightColour(Chromaticity c)
+    public static Rgb8 LightColor(Chromaticity c)
     {
         var xyz = Tristimulus.FromChromaticity(c, 1);
         var (r, g, b) = Linear(xyz);

@@ -4,23 +4,6 @@ using Lumen.Spectra;
 
 namespace Lumen.Descriptors;
 
-/// <summary>Shape descriptors of a spectrum.</summary>
-/// <param name="PeakNm">Wavelength of the maximum, nm.</param>
-/// <param name="CentroidNm">Power-weighted mean wavelength ΣλS/ΣS over the measured range, nm.</param>
-/// <param name="FwhmNm">Full width at half maximum of the dominant (highest) peak, nm (interpolated half-maximum crossings); null when the peak's half maximum is not crossed inside the data.</param>
-/// <param name="DominantNm">Dominant wavelength, nm; negative for a complementary wavelength (purple stimuli), CIE 15 convention; null when undefined.</param>
-/// <param name="Purity">Excitation purity p_e (0 at the white point, 1 on the spectrum locus).</param>
-/// <param name="WhitePoint">The achromatic point used for dominant wavelength and purity.</param>
-public sealed record SpectralDescriptorResult(double PeakNm, double CentroidNm, double? FwhmNm, double? DominantNm, double Purity, string WhitePoint);
-
-/// <summary>Dominant (or complementary) wavelength and purity of a chromaticity.</summary>
-/// <param name="WavelengthNm">Dominant wavelength (positive) or complementary wavelength (negative), nm.</param>
-/// <param name="ExcitationPurity">|NS|/|ND|.</param>
-/// <param name="IsComplementary">True for purple stimuli (the ray meets the purple line).</param>
-/// <param name="IntersectionX">x of the intersection point D.</param>
-/// <param name="IntersectionY">y of D.</param>
-public readonly record struct DominantWavelengthResult(double WavelengthNm, double ExcitationPurity, bool IsComplementary, double IntersectionX, double IntersectionY);
-
 /// <summary>Spectral descriptors and CIE 15 dominant wavelength / excitation purity.</summary>
 /// <remarks>
 /// Dominant wavelength per CIE 15:2004 §9.1 (methods note colorimetry.md §4): the ray from the achromatic
@@ -33,7 +16,7 @@ public static class SpectralDescriptors
 {
     private static readonly Lazy<(double[] X, double[] Y, int StartNm)> Locus = new(() =>
     {
-        var cmf = CieTables.ColourMatchingFunctions(Observer.Cie1931TwoDegree);
+        var cmf = CieTables.ColorMatchingFunctions(Observer.Cie1931TwoDegree);
         var xb = cmf.Column("x_bar"); var yb = cmf.Column("y_bar"); var zb = cmf.Column("z_bar");
         var x = new double[cmf.Count]; var y = new double[cmf.Count];
         for (int i = 0; i < cmf.Count; i++)
@@ -66,7 +49,7 @@ public static class SpectralDescriptors
         double purity = double.NaN;
         if (chromaticity2Degree.IsDefined)
         {
-            var d = Dominant(chromaticity2Degree.X, chromaticity2Degree.Y, 1.0 / 3, 1.0 / 3);
+            var d = Dominant(chromaticity2Degree.SmallX, chromaticity2Degree.SmallY, 1.0 / 3, 1.0 / 3);
             if (d is { } r) { dominant = r.WavelengthNm; purity = r.ExcitationPurity; }
         }
         return new SpectralDescriptorResult(w[peak], sum != 0 ? sumL / sum : double.NaN, fwhm, dominant, purity, "equal-energy E (1/3, 1/3)");

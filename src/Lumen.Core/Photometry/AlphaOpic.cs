@@ -4,33 +4,6 @@ using Lumen.Spectra;
 
 namespace Lumen.Photometry;
 
-/// <summary>The five CIE S 026 photoreceptor classes, melanopic first.</summary>
-public enum AlphaOpicKind
-{
-    /// <summary>Melanopic (ipRGC melanopsin).</summary>
-    Melanopic,
-
-    /// <summary>S-cone-opic.</summary>
-    SConeOpic,
-
-    /// <summary>M-cone-opic.</summary>
-    MConeOpic,
-
-    /// <summary>L-cone-opic.</summary>
-    LConeOpic,
-
-    /// <summary>Rhodopic (rods).</summary>
-    Rhodopic,
-}
-
-/// <summary>One α-opic result.</summary>
-/// <param name="Kind">The photoreceptor class.</param>
-/// <param name="EfficacyMilliwattsPerLumen">α-opic efficacy of luminous radiation K_α,v, mW/lm.</param>
-/// <param name="Der">α-opic daylight (D65) efficacy ratio γ = K_α,v / K_α,v(D65).</param>
-/// <param name="Irradiance">α-opic irradiance (or radiance, intensity, flux) in W-based units when absolute; else null.</param>
-/// <param name="Edi">α-opic equivalent daylight (D65) illuminance (lx) — or luminance, intensity, flux for the other units — when absolute; else null.</param>
-public readonly record struct AlphaOpicResult(AlphaOpicKind Kind, double EfficacyMilliwattsPerLumen, double Der, double? Irradiance, double? Edi);
-
 /// <summary>
 /// CIE S 026:2018 α-opic metrology: α-opic quantities, efficacy of luminous radiation (ELR), equivalent
 /// daylight (D65) illuminance (EDI) and daylight efficacy ratio (DER).
@@ -78,17 +51,17 @@ public static class AlphaOpic
 
     private static (double[] EAlpha, double Ev) Sums(RegularSamples samples)
     {
-        var table = CieTables.Load("alpha_opic_action_spectra");
+        var table = CieTables.AlphaOpicActionSpectra;
         var w = SpectralWeights.For(table, Columns, samples.StartNm, samples.StepNm, samples.Values.Length);
         var e = new double[5];
         for (int k = 0; k < 5; k++) e[k] = SpectralSum.Dot(samples.Values, w.Weights[k]);
-        double v = SpectralSum.Dot(samples.Values, SpectralWeights.For(CieTables.Load("luminous_efficiency_photopic"), ["V"], samples.StartNm, samples.StepNm, samples.Values.Length).Weights[0]);
+        double v = SpectralSum.Dot(samples.Values, SpectralWeights.For(CieTables.PhotopicLuminousEfficiency, ["V"], samples.StartNm, samples.StepNm, samples.Values.Length).Weights[0]);
         return (e, Photometer.KmLumensPerWatt * v);
     }
 
     private static double[] ComputeD65Efficacy()
     {
-        var d65 = CieTables.Load("illuminant_D65");
+        var d65 = CieTables.IlluminantD65;
         var values = new double[401];
         for (int i = 0; i < 401; i++) values[i] = d65.At("D65", 380 + i);
         var (e, ev) = Sums(new RegularSamples(380, 1, values, "CIE D65, 380–780 nm at 1 nm"));

@@ -1,36 +1,5 @@
 namespace Lumen.Rendition;
 
-/// <summary>CIECAM02 viewing conditions.</summary>
-/// <param name="AdaptingLuminance">L_A, cd/m².</param>
-/// <param name="BackgroundY">Y_b, background relative luminance (0–100).</param>
-/// <param name="F">Surround factor F (average 1.0).</param>
-/// <param name="C">Surround impact c (average 0.69).</param>
-/// <param name="Nc">Chromatic induction N_c (average 1.0).</param>
-/// <param name="Degree">Degree of adaptation D in [0, 1], or null to compute it from F and L_A.</param>
-public sealed record ViewingConditions(double AdaptingLuminance, double BackgroundY, double F, double C, double Nc, double? Degree)
-{
-    /// <summary>CIE 224:2017 conditions: L_A = 100 cd/m², Y_b = 20, average surround, D = 1.</summary>
-    public static ViewingConditions Cie224 { get; } = new(100, 20, 1.0, 0.69, 1.0, 1.0);
-}
-
-/// <summary>CIECAM02 correlates used by Lumen (J, C, M, h) and the CAM02-UCS coordinates.</summary>
-/// <param name="J">Lightness.</param>
-/// <param name="C">Chroma.</param>
-/// <param name="M">Colourfulness.</param>
-/// <param name="HueDegrees">Hue angle h, degrees in [0, 360).</param>
-public readonly record struct Cam02(double J, double C, double M, double HueDegrees)
-{
-    /// <summary>CAM02-UCS coordinates (Luo, Cui, Li 2006): J′ = 1.7J/(1 + 0.007J), M′ = ln(1 + 0.0228M)/0.0228.</summary>
-    /// <returns>(J′, a′, b′).</returns>
-    public (double J, double A, double B) ToUcs()
-    {
-        double jp = 1.7 * J / (1 + 0.007 * J);
-        double mp = Math.Log(1 + 0.0228 * M) / 0.0228;
-        double h = HueDegrees * Math.PI / 180;
-        return (jp, mp * Math.Cos(h), mp * Math.Sin(h));
-    }
-}
-
 /// <summary>
 /// The CIECAM02 forward model (CIE 159:2004) for a fixed white and viewing conditions, with the per-white
 /// terms computed once.
@@ -38,7 +7,7 @@ public readonly record struct Cam02(double J, double C, double M, double HueDegr
 /// <remarks>Constants and steps as in methods note cie224-tm30.md §4 (confirmed against colour-science).
 /// Check: XYZ = (19.01, 20.00, 21.78), white (95.05, 100, 108.88), L_A = 318.31, Y_b = 20, average surround →
 /// J = 41.7310911, M = 0.1088421, h = 219.0484326 (colour-science doctest).</remarks>
-public sealed class Ciecam02
+internal sealed class Ciecam02
 {
     private static readonly double[,] Cat02 = { { 0.7328, 0.4296, -0.1624 }, { -0.7036, 1.6975, 0.0061 }, { 0.0030, 0.0136, 0.9834 } };
     private static readonly double[,] Hpe = { { 0.38971, 0.68898, -0.07868 }, { -0.22981, 1.18340, 0.04641 }, { 0.0, 0.0, 1.0 } };

@@ -4,28 +4,6 @@ using Lumen.Spectra;
 
 namespace Lumen.Rendition;
 
-/// <summary>IES TM-30 values of one of the 16 hue-angle bins.</summary>
-/// <param name="Index">Bin number 1–16 (bin 1 = hue 0°–22.5°).</param>
-/// <param name="SampleCount">Number of colour evaluation samples in the bin (by hue under the reference).</param>
-/// <param name="Rf">Local fidelity Rf,hj.</param>
-/// <param name="Rcs">Local chroma shift Rcs,hj as a fraction (×100 for %).</param>
-/// <param name="Rhs">Local hue shift Rhs,hj (dimensionless).</param>
-/// <param name="ReferenceA">Bin-average a′ under the reference.</param>
-/// <param name="ReferenceB">Bin-average b′ under the reference.</param>
-/// <param name="TestA">Bin-average a′ under the test source.</param>
-/// <param name="TestB">Bin-average b′ under the test source.</param>
-public readonly record struct HueBin(int Index, int SampleCount, double Rf, double Rcs, double Rhs,
-    double ReferenceA, double ReferenceB, double TestA, double TestB);
-
-/// <summary>CIE 224:2017 and IES TM-30-20 results.</summary>
-/// <param name="Rf">Fidelity index Rf (CIE 224 Rf = TM-30-18/-20 Rf).</param>
-/// <param name="Rg">TM-30 gamut index Rg.</param>
-/// <param name="RfCes">Rf,i of the 99 colour evaluation samples (CES1 first).</param>
-/// <param name="HueBins">The 16 hue bins.</param>
-/// <param name="Reference">The reference illuminant.</param>
-/// <param name="CesBins">Hue bin (1–16) of each CES under the reference, CES1 first.</param>
-public sealed record FidelityResult(double Rf, double Rg, IReadOnlyList<double> RfCes, IReadOnlyList<HueBin> HueBins, ReferenceIlluminant Reference, IReadOnlyList<int> CesBins);
-
 /// <summary>
 /// CIE 224:2017 colour fidelity index Rf with the IES TM-30-20 gamut index Rg and hue-bin values.
 /// </summary>

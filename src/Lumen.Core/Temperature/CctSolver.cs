@@ -3,15 +3,6 @@ using Lumen.Colorimetry;
 
 namespace Lumen.Temperature;
 
-/// <summary>Options for CCT and Duv.</summary>
-/// <param name="Method">The method (default: exact locus, Newton).</param>
-/// <param name="C2">The c2 convention of the Planckian locus (default: CIE 15, 1.4388e-2 m·K).</param>
-public sealed record CctOptions(CctMethod Method = CctMethod.LocusNewton, C2Convention C2 = C2Convention.Cie15Its90)
-{
-    /// <summary>The defaults.</summary>
-    public static CctOptions Default { get; } = new();
-}
-
 /// <summary>Façade: CCT and Duv from a chromaticity, and the inverse.</summary>
 /// <remarks>CCT is defined on the CIE 1931 2° observer's (u, v) (CIE 15); pass a 2° chromaticity.</remarks>
 public static class CctSolver
@@ -27,7 +18,7 @@ public static class CctSolver
         return options.Method switch
         {
             CctMethod.Robertson1968 => Robertson1968.Solve(chromaticity.U, chromaticity.V),
-            _ => LocusNewton.Solve(chromaticity.U, chromaticity.V, PlanckianLocus.For(options.C2)),
+            _ => NearestPlanckianPoint.Solve(chromaticity.U, chromaticity.V, PlanckianLocus.For(options.C2)),
         };
     }
 

@@ -10,7 +10,7 @@ namespace Lumen.Temperature;
 /// Accuracy against the exact locus: ≤ 0.6 K at 2000–6500 K, up to ~17 K at 18 000 K. Undefined below
 /// 1667 K (600 mired).
 /// </remarks>
-public static class Robertson1968
+internal static class Robertson1968
 {
     private static readonly double[,] Table =
     {

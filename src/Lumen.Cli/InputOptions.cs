@@ -1,0 +1,72 @@
+using System.CommandLine;
+using Lumen.Analysis;
+using Lumen.Formats;
+using Lumen.Spectra;
+
+namespace Lumen.Cli;
+
+/// <summary>
+/// The input options every verb that reads spectra shares: files, folders (searched recursively for .csv, .tsv and .txt)
+/// and <c>-</c> for standard input; the unit when a file declares none; the layout.
+/// </summary>
+internal sealed class InputOptions
+{
+    public Argument<string[]> Inputs { get; } = new("inputs")
+    {
+        Description = "Spectrum files or folders (searched recursively for .csv, .tsv, .txt); '-' reads standard input.",
+        Arity = ArgumentArity.OneOrMore,
+    };
+
+    public Option<string?> Unit { get; } = new("--unit")
+    {
+        Description = "Unit of the values when a file does not declare one: relative (default), W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.",
+    };
+
+    public Option<string> Layout { get; } = new("--layout")
+    {
+        Description = "Input layout: auto (detected), rows (one spectrum per row) or columns (one spectrum per column).",
+        DefaultValueFactory = _ => "auto",
+    };
+
+    /// <summary>Adds the options to a command.</summary>
+    public void AddTo(Command command)
+    {
+        Layout.AcceptOnlyFromAmong("auto", "rows", "columns");
+        command.Add(Inputs);
+        command.Add(Unit);
+        command.Add(Layout);
+    }
+
+    /// <summary>The input paths as given (before folder expansion).</summary>
+    public IReadOnlyList<string> Given(ParseResult parse) => parse.GetValue(Inputs) ?? [];
+
+    /// <summary>Checks the options; false (with the message written) on a usage error.</summary>
+    public bool TryResolve(ParseResult parse, TextWriter stderr, out InputSelection selection)
+    {
+        selection = default!;
+        SpectralUnit? unit = null;
+        if (parse.GetValue(Unit) is { } text)
+        {
+            if (!SpectralUnits.TryParse(text, out var u))
+            {
+                stderr.WriteLine($"lumen: --unit '{text}' is not a unit; expected relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm.");
+                return false;
+            }
+            unit = u;
+        }
+        TableLayout? layout = parse.GetValue(Layout) switch { "rows" => TableLayout.Rows, "columns" => TableLayout.Columns, _ => null };
+        selection = new InputSelection(SpectrumFiles.Expand(Given(parse)), unit, layout);
+        return true;
+    }
+}
+
+/// <summary>Resolved inputs: the files after folder expansion, the default unit and the layout.</summary>
+internal sealed record InputSelection(IReadOnlyList<string> Files, SpectralUnit? Unit, TableLayout? Layout)
+{
+    /// <summary>Every record of every file, in order (the row layout streams).</summary>
+    public IEnumerable<InputRecord> Records(TextReader stdin, ReadProgress? progress = null)
+    {
+        foreach (var file in Files)
+            foreach (var r in SpectrumFiles.Read(file, Unit, stdin, Layout, progress)) yield return r;
+    }
+}

@@ -1,0 +1,92 @@
+using System.CommandLine;
+using System.Text;
+
+namespace Lumen.Cli;
+
+/// <summary>
+/// Where a verb's result goes: standard output (no <c>-o</c>, or <c>-o -</c>) or a file written atomically — to a
+/// temporary file beside the target, renamed over it only when everything was written, so the target never holds a torn
+/// file. An output that is the same file as an input is refused.
+/// </summary>
+internal static class OutputTarget
+{
+    /// <summary>The shared <c>-o/--out</c> option.</summary>
+    public static Option<string?> Option(string description, bool required = false, params string[] aliases) =>
+        new("--out", ["-o", .. aliases]) { Description = description + " '-' means standard output.", Required = required };
+
+    /// <summary>True for standard output.</summary>
+    public static bool IsStdout(string? path) => path is null || path == "-";
+
+    /// <summary>Refuses an output path that names one of the inputs (it would destroy the data being read).</summary>
+    public static string? ConflictWithInputs(string? path, IEnumerable<string> inputs)
+    {
+        if (IsStdout(path)) return null;
+        string target = Path.GetFullPath(path!);
+        foreach (var input in inputs)
+        {
+            if (input == "-") continue;
+            if (string.Equals(Path.GetFullPath(input), target, StringComparison.Ordinal))
+                return $"the output '{path}' is also an input; choose another output file";
+        }
+        return null;
+    }
+
+    /// <summary>Writes text to standard output or atomically to a file.</summary>
+    /// <returns>Null on success, else the reason it could not be written.</returns>
+    public static string? WriteText(string? path, TextWriter stdout, Action<TextWriter> write)
+    {
+        if (IsStdout(path)) { write(stdout); stdout.Flush(); return null; }
+        return WriteFile(path!, stream =>
+        {
+            using var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
+            write(w);
+        });
+    }
+
+    /// <summary>Writes bytes atomically to a file.</summary>
+    /// <returns>Null on success, else the reason it could not be written.</returns>
+    public static string? WriteBytes(string path, byte[] bytes) => WriteFile(path, s => s.Write(bytes));
+
+    /// <summary>Writes a file through a temporary file in the same folder, then renames it over the target.</summary>
+    /// <returns>Null on success, else the reason it could not be written.</returns>
+    public static string? WriteFile(string path, Action<Stream> write)
+    {
+        string full, temp;
+        try
+        {
+            full = Path.GetFullPath(path);
+            if (Directory.Exists(full)) return $"cannot write '{path}': it is a folder";
+            temp = Path.Combine(Path.GetDirectoryName(full) ?? ".", $".{Path.GetFileName(full)}.{Environment.ProcessId}.lumen-tmp");
+        }
+        catch (Exception ex) when (ex is ArgumentException or NotSupportedException or PathTooLongException)
+        {
+            return $"cannot write '{path}': {ex.Message}";
+        }
+        try
+        {
+            using (var stream = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None, 1 << 16))
+            {
+                write(stream);
+                stream.Flush(flushToDisk: true);
+            }
+            File.Move(temp, full, overwrite: true);
+            return null;
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            TryDelete(temp);
+            return $"cannot write '{path}': {ex.Message}";
+        }
+        catch
+        {
+            TryDelete(temp);
+            throw;
+        }
+    }
+
+    private static void TryDelete(string path)
+    {
+        try { File.Delete(path); }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException) { /* best effort: the target is untouched either way */ }
+    }
+}

@@ -1,0 +1,38 @@
+using Lumen.Conformance;
+
+namespace Lumen.Analysis;
+
+/// <summary>
+/// What became of one input record: its assessment (and verdict, when a specification was given), or its error.
+/// Every writer, plot and report reads these, in input order.
+/// </summary>
+/// <param name="Record">The input record.</param>
+/// <param name="Assessment">The assessment; null exactly when <see cref="Error"/> is not.</param>
+/// <param name="Verdict">The verdict against the specification; null without a specification or for an error.</param>
+/// <param name="Error">Why the record has no result (unreadable, or its computation failed); null when it has one.</param>
+public sealed record RecordOutcome(InputRecord Record, Assessment? Assessment, Verdict? Verdict, ReadDiagnostic? Error)
+{
+    /// <summary><c>pass</c>, <c>fail</c>, <c>ok</c> (a result without a specification) or <c>error</c>.</summary>
+    public string Status => Assessment is null ? "error" : Verdict is null ? "ok" : Verdict.Pass ? "pass" : "fail";
+
+    /// <summary>Assesses a record and, with a specification, judges it; an error record passes through.</summary>
+    /// <param name="record">The input record.</param>
+    /// <param name="options">What to compute.</param>
+    /// <param name="spec">The specification, or null for none.</param>
+    /// <returns>The outcome (never throws for a record that was read: a failing computation becomes its error).</returns>
+    public static RecordOutcome Of(InputRecord record, AssessmentOptions options, PreparedSpec? spec = null)
+    {
+        ArgumentNullException.ThrowIfNull(record);
+        ArgumentNullException.ThrowIfNull(options);
+        switch (record)
+        {
+            case SpectrumRecord s:
+                var a = Assessor.Assess(s.Spectrum, options);
+                return new RecordOutcome(record, a, spec?.Evaluate(a), null);
+            case ErrorRecord e:
+                return new RecordOutcome(record, null, null, e.Error);
+            default:
+                throw new ArgumentException("Unknown record kind.", nameof(record));
+        }
+    }
+}

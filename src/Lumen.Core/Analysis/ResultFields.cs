@@ -1,0 +1,157 @@
+using System.Collections.Frozen;
+using Lumen.Photometry;
+
+using Lumen.Cie;
+
+namespace Lumen.Analysis;
+
+/// <summary>
+/// Numeric result fields by their path in the <c>analyze</c> JSON object (e.g. <c>cct.duv</c>, <c>cri.r[8]</c>,
+/// <c>nonVisual.melanopic.der</c>), for tolerance specs and batch statistics. A test checks that every path
+/// here exists in the JSON output with the same value.
+/// </summary>
+public static class ResultFields
+{
+    private static readonly FrozenDictionary<string, Func<Assessment, double?>> Fields = Build();
+
+    /// <summary>All known paths.</summary>
+    public static IReadOnlyCollection<string> Paths => Fields.Keys;
+
+    /// <summary>True when the path names a numeric field.</summary>
+    /// <param name="path">A field path such as <c>cri.ra</c> (case-sensitive).</param>
+    /// <returns>Whether it is known.</returns>
+    public static bool IsKnown(string path) => Fields.ContainsKey(path);
+
+    /// <summary>The value of a field, or null when the path is unknown or the value not computed.</summary>
+    /// <param name="a">The assessment to read.</param>
+    /// <param name="path">A field path such as <c>cri.ra</c>; unknown paths give null.</param>
+    /// <returns>The value in the field's own unit (as in the JSON output), or null.</returns>
+    public static double? Get(Assessment a, string path) =>
+        Fields.TryGetValue(path, out var f) ? f(a) : null;
+
+    /// <summary>The result group that computes a field (colorimetry for the always-computed fields).</summary>
+    /// <param name="path">A field path such as <c>photometry.ler</c>.</param>
+    /// <returns>The group.</returns>
+    public static MetricGroups GroupOf(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        int dot = path.IndexOf('.', StringComparison.Ordinal);
+        return (dot < 0 ? path : path[..dot]) switch
+        {
+            "cri" => MetricGroups.Cri,
+            "fidelity" => MetricGroups.Fidelity,
+            "photometry" => MetricGroups.Photometry,
+            "nonVisual" => MetricGroups.NonVisual,
+            "spectral" => MetricGroups.Spectral,
+            _ => MetricGroups.Colorimetry,
+        };
+    }
+
+    /// <summary>JSON field name of a photometric quantity, unit in the name.</summary>
+    /// <param name="quantity">The quantity.</param>
+    /// <returns>For example <c>illuminanceLux</c>.</returns>
+    public static string PhotometricName(PhotometricQuantity quantity) => quantity switch
+    {
+        PhotometricQuantity.IlluminanceLux => "illuminanceLux",
+        PhotometricQuantity.LuminanceCandelaPerSquareMetre => "luminanceCdPerM2",
+        PhotometricQuantity.IntensityCandela => "intensityCd",
+        _ => "fluxLm",
+    };
+
+    /// <summary>JSON field name of the scotopic counterpart of a photometric quantity.</summary>
+    /// <param name="quantity">The quantity.</param>
+    /// <returns>For example <c>scotopicIlluminanceLux</c>.</returns>
+    public static string ScotopicName(PhotometricQuantity quantity)
+    {
+        string n = PhotometricName(quantity);
+        return "scotopic" + char.ToUpperInvariant(n[0]) + n[1..];
+    }
+
+    /// <summary>JSON field name of the radiometric total, unit in the name.</summary>
+    /// <param name="quantity">The photometric quantity it belongs to.</param>
+    /// <returns>For example <c>irradianceWPerM2</c>.</returns>
+    public static string RadiometricName(PhotometricQuantity quantity) => quantity switch
+    {
+        PhotometricQuantity.IlluminanceLux => "irradianceWPerM2",
+        PhotometricQuantity.LuminanceCandelaPerSquareMetre => "radianceWPerSrM2",
+        PhotometricQuantity.IntensityCandela => "intensityWPerSr",
+        _ => "fluxW",
+    };
+
+    /// <summary>JSON name of an α-opic kind.</summary>
+    /// <param name="kind">The kind.</param>
+    /// <returns>For example <c>sConeOpic</c>.</returns>
+    public static string NonVisualName(AlphaOpicKind kind) => kind switch
+    {
+        AlphaOpicKind.Melanopic => "melanopic",
+        AlphaOpicKind.SConeOpic => "sConeOpic",
+        AlphaOpicKind.MConeOpic => "mConeOpic",
+        AlphaOpicKind.LConeOpic => "lConeOpic",
+        _ => "rhodopic",
+    };
+
+    /// <summary>Observer label used in every output: <c>2</c> or <c>10</c>.</summary>
+    /// <param name="observer">The observer.</param>
+    /// <returns>The label.</returns>
+    public static string ObserverLabel(Observer observer) => observer == Observer.Cie1931TwoDegree ? "2" : "10";
+
+    private static FrozenDictionary<string, Func<Assessment, double?>> Build()
+    {
+        var d = new Dictionary<string, Func<Assessment, double?>>(StringComparer.Ordinal)
+        {
+            ["tristimulus.X"] = a => a.Tristimulus.X,
+            ["tristimulus.Y"] = a => a.Tristimulus.Y,
+            ["tristimulus.Z"] = a => a.Tristimulus.Z,
+            ["tristimulusAbsolute.X"] = a => a.AbsoluteTristimulus?.X,
+            ["tristimulusAbsolute.Y"] = a => a.AbsoluteTristimulus?.Y,
+            ["tristimulusAbsolute.Z"] = a => a.AbsoluteTristimulus?.Z,
+            ["chromaticity.x"] = a => a.Chromaticity.SmallX,
+            ["chromaticity.y"] = a => a.Chromaticity.SmallY,
+            ["chromaticity.u"] = a => a.Chromaticity.U,
+            ["chromaticity.v"] = a => a.Chromaticity.V,
+            ["chromaticity.uPrime"] = a => a.Chromaticity.UPrime,
+            ["chromaticity.vPrime"] = a => a.Chromaticity.VPrime,
+            ["cct.kelvin"] = a => a.Cct.CctKelvin,
+            ["cct.duv"] = a => a.Cct.Duv,
+            ["cri.ra"] = a => a.Cri?.Ra,
+            ["cri.r9"] = a => a.Cri?.R9,
+            ["cri.dc"] = a => a.Cri?.Dc,
+            ["fidelity.rf"] = a => a.Fidelity?.Rf,
+            ["fidelity.rg"] = a => a.Fidelity?.Rg,
+            ["photometry.ler"] = a => a.Photometry?.LerLumensPerWatt,
+            ["photometry.spRatio"] = a => a.Photometry?.SpRatio,
+            ["spectral.peakNm"] = a => a.Spectral?.PeakNm,
+            ["spectral.centroidNm"] = a => a.Spectral?.CentroidNm,
+            ["spectral.fwhmNm"] = a => a.Spectral?.FwhmNm,
+            ["spectral.dominantNm"] = a => a.Spectral?.DominantNm,
+            ["spectral.purity"] = a => a.Spectral?.Purity,
+        };
+        for (int i = 0; i < 14; i++) { int k = i; d[$"cri.r[{k}]"] = a => a.Cri is { } c ? c.R[k] : null; }
+        for (int i = 0; i < 99; i++) { int k = i; d[$"fidelity.rfCes[{k}]"] = a => a.Fidelity is { } f ? f.RfCes[k] : null; }
+        for (int j = 0; j < 16; j++)
+        {
+            int k = j;
+            d[$"fidelity.hueBins[{k}].rf"] = a => a.Fidelity is { } f ? f.HueBins[k].Rf : null;
+            d[$"fidelity.hueBins[{k}].rcs"] = a => a.Fidelity is { } f ? f.HueBins[k].Rcs * 100 : null;
+            d[$"fidelity.hueBins[{k}].rhs"] = a => a.Fidelity is { } f ? f.HueBins[k].Rhs : null;
+        }
+        foreach (PhotometricQuantity q in Enum.GetValues<PhotometricQuantity>())
+        {
+            var qq = q;
+            string name = PhotometricName(q);
+            d[$"photometry.{name}"] = a => a.Photometry is { Quantity: { } x } p && x == qq ? p.Photometric : null;
+            d[$"photometry.{ScotopicName(q)}"] = a => a.Photometry is { Quantity: { } x } p && x == qq ? p.Scotopic : null;
+            d[$"photometry.{RadiometricName(q)}"] = a => a.Photometry is { Quantity: { } x } p && x == qq ? p.Radiometric : null;
+        }
+        foreach (AlphaOpicKind k in Enum.GetValues<AlphaOpicKind>())
+        {
+            var kk = k;
+            string n = NonVisualName(k);
+            d[$"nonVisual.{n}.efficacy"] = a => a.NonVisual?[(int)kk].EfficacyMilliwattsPerLumen;
+            d[$"nonVisual.{n}.der"] = a => a.NonVisual?[(int)kk].Der;
+            d[$"nonVisual.{n}.irradiance"] = a => a.NonVisual?[(int)kk].Irradiance;
+            d[$"nonVisual.{n}.edi"] = a => a.NonVisual?[(int)kk].Edi;
+        }
+        return d.ToFrozenDictionary(StringComparer.Ordinal);
+    }
+}

@@ -1,0 +1,210 @@
+using Lumen.Analysis;
+using Lumen.Colorimetry;
+using Lumen.Conformance;
+
+namespace Lumen.BatchStatistics;
+
+/// <summary>
+/// Accumulates a batch record by record (input order not required) and builds the summary.
+/// </summary>
+/// <remarks>Memory: the spectra are never kept; per result it keeps u′v′ (two floats), the steps from the
+/// target (one float) and the ID as UTF-8 in shared blocks — about 30 bytes a unit, for the percentile, outlier and spread
+/// statistics. Outliers: robust z of the Δu′v′ distance from the coordinate-wise median, with MAD scaled by
+/// 1.4826 and the 3.5 cut-off of Iglewicz and Hoaglin (common practice). Cpk = min((USL − μ)/3σ, (μ − LSL)/3σ)
+/// (common practice).</remarks>
+public sealed class BatchSummaryBuilder
+{
+    /// <summary>Fields summarised with mean/SD/min/max.</summary>
+    public static IReadOnlyList<string> SummaryFields { get; } = ["cct.kelvin", "cct.duv", "cri.ra", "cri.r9", "fidelity.rf", "fidelity.rg"];
+
+    private readonly Dictionary<string, RunningStatistics> _stats = SummaryFields.ToDictionary(f => f, _ => new RunningStatistics(), StringComparer.Ordinal);
+    private readonly Dictionary<string, RunningStatistics> _limited;
+    private readonly IReadOnlyList<(string Field, double? Min, double? Max)> _limits;
+    private readonly List<float> _u = [], _v = [], _stepsTarget = [];
+    private readonly IdArena _ids = new();
+    private readonly StepEllipse? _ellipse; // the spec's step metric (its shape, moved to the batch mean); null without a target
+    private long _records, _errors, _passed, _failed;
+
+    /// <summary>Creates a builder for a batch judged against <paramref name="spec"/>.</summary>
+    /// <param name="spec">The prepared specification: its limits give the capability fields, its ellipse the step metric.</param>
+    public BatchSummaryBuilder(PreparedSpec spec)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        _limits = spec.Spec.Limits.Select(l => (l.Field, l.Min, l.Max)).ToArray();
+        _limited = _limits.Select(l => l.Field).Distinct().ToDictionary(f => f, _ => new RunningStatistics(), StringComparer.Ordinal);
+        _ellipse = spec.Ellipse;
+    }
+
+    /// <summary>Adds one record's outcome: a result with its verdict, or an error.</summary>
+    /// <param name="outcome">The outcome (judged against the same specification).</param>
+    public void Add(RecordOutcome outcome)
+    {
+        ArgumentNullException.ThrowIfNull(outcome);
+        if (outcome.Assessment is { } a)
+            AddResult(outcome.Record.Name, a.Chromaticity2Degree, outcome.Verdict?.Pass ?? true, p => ResultFields.Get(a, p), outcome.Verdict?.StepsFromTarget);
+        else AddError();
+    }
+
+    /// <summary>Counts a record that could not be read or computed.</summary>
+    internal void AddError() { _records++; _errors++; }
+
+    /// <summary>Adds a result.</summary>
+    /// <param name="id">Record ID.</param>
+    /// <param name="chromaticity2Degree">Its 2° chromaticity.</param>
+    /// <param name="pass">Pass/fail against the spec.</param>
+    /// <param name="field">Field resolver (summary and limited fields).</param>
+    /// <param name="stepsFromTarget">Steps from the target, or null.</param>
+    internal void AddResult(string id, Chromaticity chromaticity2Degree, bool pass, Func<string, double?> field, double? stepsFromTarget)
+    {
+        ArgumentNullException.ThrowIfNull(field);
+        _records++;
+        if (pass) _passed++; else _failed++;
+        foreach (var (name, s) in _stats) s.Add(field(name) ?? double.NaN);
+        foreach (var (name, s) in _limited) s.Add(field(name) ?? double.NaN);
+        if (chromaticity2Degree.IsDefined)
+        {
+            _u.Add((float)chromaticity2Degree.UPrime);
+            _v.Add((float)chromaticity2Degree.VPrime);
+            _ids.Add(id);
+            _stepsTarget.Add(stepsFromTarget is { } st ? (float)st : float.NaN);
+        }
+    }
+
+    /// <summary>Builds the summary.</summary>
+    /// <returns>The summary.</returns>
+    public BatchSummary Build()
+    {
+        int n = _u.Count;
+        double mu = 0, mv = 0;
+        for (int i = 0; i < n; i++) { mu += _u[i]; mv += _v[i]; }
+        mu = n > 0 ? mu / n : double.NaN; mv = n > 0 ? mv / n : double.NaN;
+
+        var fromMean = new RunningStatistics();
+        var fromMeanValues = new double[n];
+        var mean = Chromaticity.FromUPrimeVPrime(mu, mv);
+        for (int i = 0; i < n; i++)
+        {
+            var c = Chromaticity.FromUPrimeVPrime(_u[i], _v[i]);
+            fromMeanValues[i] = _ellipse is not null ? _ellipse.MovedTo(mean).Steps(c) : c.DeltaUPrimeVPrime(mean) / StandardEllipses.UPrimeVPrimePerStep;
+            fromMean.Add(fromMeanValues[i]);
+        }
+        var fromTarget = new RunningStatistics();
+        var targetValues = _stepsTarget.Where(float.IsFinite).Select(x => (double)x).ToArray();
+        foreach (var x in targetValues) fromTarget.Add(x);
+
+        var caps = _limits.Select(l =>
+        {
+            var s = _limited[l.Field];
+            double sd = s.StandardDeviation, m = s.Mean, cpk = double.PositiveInfinity;
+            if (l.Max is { } hi) cpk = Math.Min(cpk, (hi - m) / (3 * sd));
+            if (l.Min is { } lo) cpk = Math.Min(cpk, (m - lo) / (3 * sd));
+            if (!(sd > 0) || double.IsInfinity(cpk)) cpk = double.NaN;
+            return new Capability(l.Field, l.Min, l.Max, m, sd, cpk);
+        }).ToArray();
+
+        return new BatchSummary(_records, _records - _errors, _errors, _passed, _failed,
+            _stats, mu, mv, MaxPairwise(), fromMean, Percentile(fromMeanValues, 0.95), fromTarget, Percentile(targetValues, 0.95), Outliers(), caps);
+    }
+
+    /// <summary>Linear-interpolated percentile (common practice, "type 7").</summary>
+    /// <param name="values">Values (copied and sorted).</param>
+    /// <param name="p">Fraction in [0, 1].</param>
+    /// <returns>The percentile, NaN when empty.</returns>
+    public static double Percentile(IReadOnlyCollection<double> values, double p)
+    {
+        ArgumentNullException.ThrowIfNull(values);
+        if (values.Count == 0) return double.NaN;
+        var a = values.ToArray();
+        Array.Sort(a);
+        double h = (a.Length - 1) * p;
+        int i = (int)Math.Floor(h);
+        return i + 1 < a.Length ? a[i] + (h - i) * (a[i + 1] - a[i]) : a[i];
+    }
+
+    private double MaxPairwise()
+    {
+        int n = _u.Count;
+        if (n < 2) return 0;
+        // Convex hull (monotone chain), then the largest distance between hull vertices.
+        // One array of n points sorted in place (no hashing or LINQ buffers: this runs on millions of units).
+        var pts = new (double, double)[n];
+        for (int i = 0; i < n; i++) pts[i] = (_u[i], _v[i]);
+        Array.Sort(pts);
+        static double Cross((double, double) o, (double, double) a, (double, double) b) => (a.Item1 - o.Item1) * (b.Item2 - o.Item2) - (a.Item2 - o.Item2) * (b.Item1 - o.Item1);
+        var hull = new List<(double, double)>();
+        foreach (var p in pts) { while (hull.Count >= 2 && Cross(hull[^2], hull[^1], p) <= 0) hull.RemoveAt(hull.Count - 1); hull.Add(p); }
+        int lower = hull.Count + 1;
+        for (int i = pts.Length - 2; i >= 0; i--) { var p = pts[i]; while (hull.Count >= lower && Cross(hull[^2], hull[^1], p) <= 0) hull.RemoveAt(hull.Count - 1); hull.Add(p); }
+        double best = 0;
+        for (int i = 0; i < hull.Count; i++)
+            for (int j = i + 1; j < hull.Count; j++)
+            {
+                double du = hull[i].Item1 - hull[j].Item1, dv = hull[i].Item2 - hull[j].Item2;
+                best = Math.Max(best, Math.Sqrt(du * du + dv * dv));
+            }
+        return best;
+    }
+
+    private IReadOnlyList<Outlier> Outliers()
+    {
+        int n = _u.Count;
+        if (n < 5) return [];
+        var work = new double[n];
+        for (int i = 0; i < n; i++) work[i] = _u[i];
+        double mu = Median(work);
+        for (int i = 0; i < n; i++) work[i] = _v[i];
+        double mv = Median(work);
+        var d = new double[n];
+        for (int i = 0; i < n; i++) { double du = _u[i] - mu, dv = _v[i] - mv; d[i] = Math.Sqrt(du * du + dv * dv); }
+        d.CopyTo(work, 0);
+        double md = Median(work);
+        for (int i = 0; i < n; i++) work[i] = Math.Abs(d[i] - md);
+        double mad = Median(work);
+        if (!(mad > 0)) return [];
+        var list = new List<Outlier>();
+        for (int i = 0; i < n; i++)
+        {
+            double z = (d[i] - md) / (1.4826 * mad);
+            if (z > 3.5) list.Add(new Outlier(_ids.Get(i), d[i], z));
+        }
+        return list.OrderByDescending(o => o.RobustZ).ToArray();
+    }
+
+    /// <summary>IDs stored as UTF-8 in large shared blocks (about 4 bytes of overhead per ID instead of ~40).</summary>
+    private sealed class IdArena
+    {
+        private const int BlockSize = 1 << 20;
+        private readonly List<byte[]> _blocks = [];
+        private readonly List<long> _starts = [];
+        private int _used = BlockSize;
+
+        public void Add(string id)
+        {
+            var bytes = System.Text.Encoding.UTF8.GetBytes(id);
+            if (bytes.Length > ushort.MaxValue) bytes = bytes[..ushort.MaxValue];
+            if (_used + bytes.Length + 2 > BlockSize) { _blocks.Add(new byte[Math.Max(BlockSize, bytes.Length + 2)]); _used = 0; }
+            var block = _blocks[^1];
+            block[_used] = (byte)(bytes.Length >> 8);
+            block[_used + 1] = (byte)bytes.Length;
+            bytes.CopyTo(block, _used + 2);
+            _starts.Add(((long)(_blocks.Count - 1) << 32) | (uint)_used);
+            _used += bytes.Length + 2;
+        }
+
+        public string Get(int index)
+        {
+            long s = _starts[index];
+            var block = _blocks[(int)(s >> 32)];
+            int at = (int)(s & 0xFFFFFFFF);
+            int len = (block[at] << 8) | block[at + 1];
+            return System.Text.Encoding.UTF8.GetString(block, at + 2, len);
+        }
+    }
+
+    private static double Median(double[] a)
+    {
+        Array.Sort(a);
+        int n = a.Length;
+        return n % 2 == 1 ? a[n / 2] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
+    }
+}

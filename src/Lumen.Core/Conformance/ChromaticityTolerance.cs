@@ -1,0 +1,9 @@
+using Lumen.Colorimetry;
+using Lumen.Temperature;
+
+namespace Lumen.Conformance;
+
+/// <summary>A chromaticity tolerance.</summary>
+/// <param name="Kind">The kind.</param>
+/// <param name="Value">Steps or radius (unused for quadrangles).</param>
+public sealed record ChromaticityTolerance(ToleranceKind Kind, double Value);

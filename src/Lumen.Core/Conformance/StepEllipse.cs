@@ -1,0 +1,53 @@
+using Lumen.Colorimetry;
+using Lumen.Temperature;
+
+namespace Lumen.Conformance;
+
+/// <summary>A 1-step chromaticity ellipse in CIE 1931 (x, y): centre, semi-axes and orientation.</summary>
+/// <param name="Centre">Centre of the ellipse (the target chromaticity).</param>
+/// <param name="A">Semi-major axis of the 1-step ellipse (xy units).</param>
+/// <param name="B">Semi-minor axis (xy units).</param>
+/// <param name="ThetaDegrees">Angle of the major axis from +x, counter-clockwise, degrees.</param>
+/// <param name="Source">Where the shape comes from.</param>
+public sealed record StepEllipse(Chromaticity Centre, double A, double B, double ThetaDegrees, string Source)
+{
+    /// <summary>Metric coefficient g11 = cos²θ/a² + sin²θ/b².</summary>
+    public double G11 { get { double t = ThetaDegrees * Math.PI / 180; return Math.Cos(t) * Math.Cos(t) / (A * A) + Math.Sin(t) * Math.Sin(t) / (B * B); } }
+
+    /// <summary>Metric coefficient g12 = sinθ·cosθ·(1/a² − 1/b²).</summary>
+    public double G12 { get { double t = ThetaDegrees * Math.PI / 180; return Math.Sin(t) * Math.Cos(t) * (1 / (A * A) - 1 / (B * B)); } }
+
+    /// <summary>Metric coefficient g22 = sin²θ/a² + cos²θ/b².</summary>
+    public double G22 { get { double t = ThetaDegrees * Math.PI / 180; return Math.Sin(t) * Math.Sin(t) / (A * A) + Math.Cos(t) * Math.Cos(t) / (B * B); } }
+
+    /// <summary>Distance in steps (SDCM) of a point from the centre: √(g11Δx² + 2g12ΔxΔy + g22Δy²).</summary>
+    /// <param name="x">CIE 1931 x of the point, 0–1.</param>
+    /// <param name="y">CIE 1931 y of the point, 0–1.</param>
+    /// <returns>Steps (dimensionless, ≥ 0).</returns>
+    public double Steps(double x, double y)
+    {
+        double dx = x - Centre.SmallX, dy = y - Centre.SmallY;
+        return Math.Sqrt(G11 * dx * dx + 2 * G12 * dx * dy + G22 * dy * dy);
+    }
+
+    /// <summary>The same shape about another centre.</summary>
+    /// <param name="centre">The new centre.</param>
+    /// <returns>The moved ellipse.</returns>
+    public StepEllipse MovedTo(Chromaticity centre) => this with { Centre = centre };
+
+    /// <summary>Distance in steps of a chromaticity from the centre.</summary>
+    /// <param name="c">The chromaticity (CIE 1931 2°).</param>
+    /// <returns>Steps (dimensionless; NaN when <paramref name="c"/> is undefined).</returns>
+    public double Steps(Chromaticity c) => Steps(c.SmallX, c.SmallY);
+
+    /// <summary>A point on the n-step ellipse at parameter angle φ (for drawing).</summary>
+    /// <param name="steps">n.</param>
+    /// <param name="phiRadians">Parameter angle.</param>
+    /// <returns>The point.</returns>
+    public Chromaticity PointAt(double steps, double phiRadians)
+    {
+        double t = ThetaDegrees * Math.PI / 180;
+        double ex = steps * A * Math.Cos(phiRadians), ey = steps * B * Math.Sin(phiRadians);
+        return Chromaticity.FromXy(Centre.SmallX + ex * Math.Cos(t) - ey * Math.Sin(t), Centre.SmallY + ex * Math.Sin(t) + ey * Math.Cos(t));
+    }
+}

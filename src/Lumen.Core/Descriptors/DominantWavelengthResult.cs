@@ -1,0 +1,13 @@
+using Lumen.Cie;
+using Lumen.Colorimetry;
+using Lumen.Spectra;
+
+namespace Lumen.Descriptors;
+
+/// <summary>Dominant (or complementary) wavelength and purity of a chromaticity.</summary>
+/// <param name="WavelengthNm">Dominant wavelength (positive) or complementary wavelength (negative), nm.</param>
+/// <param name="ExcitationPurity">|NS|/|ND|.</param>
+/// <param name="IsComplementary">True for purple stimuli (the ray meets the purple line).</param>
+/// <param name="IntersectionX">x of the intersection point D.</param>
+/// <param name="IntersectionY">y of D.</param>
+public readonly record struct DominantWavelengthResult(double WavelengthNm, double ExcitationPurity, bool IsComplementary, double IntersectionX, double IntersectionY);

@@ -1,0 +1,91 @@
+using Lumen.Analysis;
+using Lumen.Conformance;
+
+namespace Lumen.Formats;
+
+/// <summary>Streams batch results, one row or object per input record in input order, as CSV or as a JSON array.</summary>
+public sealed class BatchResultWriter
+{
+    private readonly TextWriter _out;
+    private readonly ColumnSchema<RecordOutcome>? _csv;
+    private bool _first = true;
+
+    /// <summary>Starts the output (CSV header, or the opening bracket of the JSON array).</summary>
+    /// <param name="output">Destination.</param>
+    /// <param name="json">JSON instead of CSV.</param>
+    /// <param name="spec">The specification (its criteria become CSV columns).</param>
+    public BatchResultWriter(TextWriter output, bool json, ToleranceSpec spec)
+    {
+        ArgumentNullException.ThrowIfNull(output);
+        ArgumentNullException.ThrowIfNull(spec);
+        _out = output;
+        if (json) _out.WriteLine("[");
+        else
+        {
+            _csv = BatchColumns.For(spec);
+            _csv.WriteCsvHeader(_out);
+        }
+    }
+
+    /// <summary>Writes one record.</summary>
+    /// <param name="item">The outcome.</param>
+    public void Write(RecordOutcome item)
+    {
+        ArgumentNullException.ThrowIfNull(item);
+        if (_csv is not null) { _csv.WriteCsvRow(_out, item); return; }
+        if (!_first) _out.WriteLine(",");
+        _first = false;
+        using var sw = new StringWriter();
+        JsonOutput.Write(sw, w => WriteObject(w, item), indented: false);
+        _out.Write(sw.ToString().TrimEnd('\n', '\r'));
+    }
+
+    /// <summary>Finishes the output (the closing bracket of a JSON array) and flushes it.</summary>
+    public void Complete()
+    {
+        if (_csv is null)
+        {
+            _out.WriteLine();
+            _out.WriteLine("]");
+        }
+        _out.Flush();
+    }
+
+    private static void WriteObject(System.Text.Json.Utf8JsonWriter w, RecordOutcome item)
+    {
+        w.WriteStartObject();
+        w.WriteString("id", item.Record.Name);
+        w.WriteString("location", item.Record.Location);
+        w.WriteString("status", item.Status);
+        if (item.Assessment is { } a && item.Verdict is { } v)
+        {
+            w.WriteStartObject("result");
+            w.NumberOrNull("cctKelvin", a.Cct.CctKelvin); w.NumberOrNull("duv", a.Cct.Duv);
+            w.NumberOrNull("x", a.Chromaticity2Degree.SmallX); w.NumberOrNull("y", a.Chromaticity2Degree.SmallY);
+            w.NumberOrNull("uPrime", a.Chromaticity2Degree.UPrime); w.NumberOrNull("vPrime", a.Chromaticity2Degree.VPrime);
+            w.NumberOrNull("ra", a.Cri?.Ra); w.NumberOrNull("r9", a.Cri?.R9); w.NumberOrNull("rf", a.Fidelity?.Rf); w.NumberOrNull("rg", a.Fidelity?.Rg);
+            w.WriteEndObject();
+            w.WriteStartObject("verdict");
+            w.WriteBoolean("pass", v.Pass);
+            w.NumberOrNull("stepsFromTarget", v.StepsFromTarget);
+            w.NumberOrNull("deltaUPrimeVPrimeFromTarget", v.DeltaUPrimeVPrimeFromTarget);
+            w.WriteStartArray("criteria");
+            foreach (var c in v.Criteria)
+            {
+                w.WriteStartObject();
+                w.WriteString("criterion", c.Criterion);
+                w.NumberOrNull("measured", c.Measured);
+                w.WriteString("limit", c.Limit);
+                w.NumberOrNull("margin", c.Margin);
+                w.WriteBoolean("pass", c.Pass);
+                if (c.Note is not null) w.WriteString("note", c.Note);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteEndObject();
+            w.StringArray("warnings", a.Warnings);
+        }
+        else if (item.Error is { } e) w.Error(e);
+        w.WriteEndObject();
+    }
+}

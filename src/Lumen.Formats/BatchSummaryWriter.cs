@@ -1,0 +1,105 @@
+using System.Globalization;
+using System.Text.Json;
+using Lumen.Conformance;
+using Lumen.BatchStatistics;
+
+namespace Lumen.Formats;
+
+/// <summary>Writes a batch summary as text or JSON.</summary>
+public static class BatchSummaryWriter
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+
+    /// <summary>Writes the summary as text.</summary>
+    /// <param name="s">Summary.</param>
+    /// <param name="spec">Spec.</param>
+    /// <param name="output">Destination.</param>
+    public static void WriteText(BatchSummary s, ToleranceSpec spec, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(s);
+        ArgumentNullException.ThrowIfNull(spec);
+        ArgumentNullException.ThrowIfNull(output);
+        output.WriteLine($"Batch summary — {spec.Description}");
+        output.WriteLine(string.Create(Inv, $"Records read {s.RecordsRead} = results {s.Results} + errors {s.Errors}"));
+        output.WriteLine(string.Create(Inv, $"Pass {s.Passed}, fail {s.Failed}, pass rate {(double.IsNaN(s.PassRate) ? "—" : (s.PassRate * 100).ToString("0.0", Inv) + " %")}"));
+        output.WriteLine();
+        output.WriteLine($"{"field",-14} {"mean",10} {"SD",10} {"min",10} {"max",10}");
+        foreach (var (name, st) in s.Statistics)
+            output.WriteLine(string.Create(Inv, $"{name,-14} {G(st.Mean),10} {G(st.StandardDeviation),10} {G(st.Min),10} {G(st.Max),10}"));
+        output.WriteLine();
+        output.WriteLine(string.Create(Inv, $"Chromaticity: mean u' {s.MeanUPrime:0.00000}, v' {s.MeanVPrime:0.00000}; largest Δu'v' between two units {s.MaxPairwiseDeltaUPrimeVPrime:0.00000}"));
+        output.WriteLine(string.Create(Inv, $"Steps from batch mean: mean {G(s.StepsFromMean.Mean)}, 95th percentile {G(s.StepsFromMeanP95)}, max {G(s.StepsFromMean.Max)}"));
+        if (s.StepsFromTarget.Count > 0)
+            output.WriteLine(string.Create(Inv, $"Steps from target: mean {G(s.StepsFromTarget.Mean)}, 95th percentile {G(s.StepsFromTargetP95)}, max {G(s.StepsFromTarget.Max)}"));
+        output.WriteLine();
+        output.WriteLine(s.Outliers.Count == 0 ? "Chromaticity outliers (robust z > 3.5): none" : $"Chromaticity outliers (robust z > 3.5): {s.Outliers.Count}");
+        foreach (var o in s.Outliers.Take(50)) output.WriteLine(string.Create(Inv, $"  {o.Id}: Δu'v' {o.DeltaUPrimeVPrime:0.00000} from the median, z = {o.RobustZ:0.0}"));
+        if (s.Outliers.Count > 50) output.WriteLine($"  … and {s.Outliers.Count - 50} more (see the results file)");
+        if (s.Capabilities.Count > 0)
+        {
+            output.WriteLine();
+            output.WriteLine("Process capability (Cpk = min((USL − mean)/3σ, (mean − LSL)/3σ)):");
+            foreach (var c in s.Capabilities)
+                output.WriteLine(string.Create(Inv, $"  {c.Field,-22} mean {G(c.Mean)}, SD {G(c.StandardDeviation)}, Cpk {G(c.Cpk)}"));
+        }
+        output.WriteLine();
+        output.WriteLine(BatchSummary.Caution);
+    }
+
+    /// <summary>Writes the summary as JSON.</summary>
+    /// <param name="s">Summary.</param>
+    /// <param name="spec">Spec.</param>
+    /// <param name="output">Destination.</param>
+    public static void WriteJson(BatchSummary s, ToleranceSpec spec, TextWriter output)
+    {
+        ArgumentNullException.ThrowIfNull(s);
+        ArgumentNullException.ThrowIfNull(spec);
+        ArgumentNullException.ThrowIfNull(output);
+        JsonOutput.Write(output, w =>
+        {
+            w.WriteStartObject();
+            w.WriteString("spec", spec.Description);
+            w.WriteNumber("recordsRead", s.RecordsRead);
+            w.WriteNumber("results", s.Results);
+            w.WriteNumber("errors", s.Errors);
+            w.WriteNumber("passed", s.Passed);
+            w.WriteNumber("failed", s.Failed);
+            w.NumberOrNull("passRate", s.PassRate);
+            w.WriteStartObject("statistics");
+            foreach (var (name, st) in s.Statistics)
+            {
+                w.WriteStartObject(name);
+                w.WriteNumber("count", st.Count); w.NumberOrNull("mean", st.Mean); w.NumberOrNull("sd", st.StandardDeviation); w.NumberOrNull("min", st.Min); w.NumberOrNull("max", st.Max);
+                w.WriteEndObject();
+            }
+            w.WriteEndObject();
+            w.WriteStartObject("chromaticity");
+            w.NumberOrNull("meanUPrime", s.MeanUPrime); w.NumberOrNull("meanVPrime", s.MeanVPrime);
+            w.NumberOrNull("maxPairwiseDeltaUPrimeVPrime", s.MaxPairwiseDeltaUPrimeVPrime);
+            w.NumberOrNull("stepsFromMeanMean", s.StepsFromMean.Mean); w.NumberOrNull("stepsFromMeanP95", s.StepsFromMeanP95); w.NumberOrNull("stepsFromMeanMax", s.StepsFromMean.Max);
+            w.NumberOrNull("stepsFromTargetMean", s.StepsFromTarget.Mean); w.NumberOrNull("stepsFromTargetP95", s.StepsFromTargetP95); w.NumberOrNull("stepsFromTargetMax", s.StepsFromTarget.Max);
+            w.WriteEndObject();
+            w.WriteStartArray("outliers");
+            foreach (var o in s.Outliers)
+            {
+                w.WriteStartObject(); w.WriteString("id", o.Id); w.NumberOrNull("deltaUPrimeVPrime", o.DeltaUPrimeVPrime); w.NumberOrNull("robustZ", o.RobustZ); w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteStartArray("capability");
+            foreach (var c in s.Capabilities)
+            {
+                w.WriteStartObject(); w.WriteString("field", c.Field);
+                if (c.Lower is { } lo) w.NumberOrNull("min", lo);
+                if (c.Upper is { } hi) w.NumberOrNull("max", hi);
+                w.NumberOrNull("mean", c.Mean); w.NumberOrNull("sd", c.StandardDeviation); w.NumberOrNull("cpk", c.Cpk);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteString("caution", BatchSummary.Caution);
+            w.WriteEndObject();
+        });
+    }
+
+    private static string G(double v) => double.IsFinite(v) ? v.ToString("0.####", Inv) : "—";
+}

@@ -1,0 +1,14 @@
+using System.Reflection;
+using SkiaSharp;
+
+namespace Lumen.Graphics;
+
+/// <summary>Image formats Lumen writes.</summary>
+public enum ImageFormat
+{
+    /// <summary>PNG raster.</summary>
+    Png,
+
+    /// <summary>SVG vector.</summary>
+    Svg,
+}

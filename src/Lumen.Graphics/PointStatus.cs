@@ -1,0 +1,20 @@
+using Lumen.Cie;
+using Lumen.Colorimetry;
+using Lumen.Conformance;
+using Lumen.Temperature;
+using SkiaSharp;
+
+namespace Lumen.Graphics;
+
+/// <summary>Outcome used to mark a point.</summary>
+public enum PointStatus
+{
+    /// <summary>No specification.</summary>
+    None,
+
+    /// <summary>Passed the specification.</summary>
+    Pass,
+
+    /// <summary>Failed the specification.</summary>
+    Fail,
+}
