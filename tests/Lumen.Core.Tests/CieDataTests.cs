@@ -20,15 +20,32 @@ public class CieDataTests
         ("CIE_illum_D55", "illuminant_D55"), ("CIE_illum_D75", "illuminant_D75"),
     };
 
-    [SharedCieFact]
+    private static string Originals => Path.Combine(RepoPaths.Root, "data-cie", "originals");
+
+    [Fact]
+    public void Every_CIE_original_in_the_repository_has_its_published_SHA_256()
+    {
+        // Source: the SHA-256 the CIE publishes in each dataset's metadata (copied into data-cie/originals/SHA256SUMS).
+        var sums = File.ReadAllLines(Path.Combine(Originals, "SHA256SUMS"))
+            .Where(l => l.Length > 0).Select(l => l.Split("  ")).ToDictionary(p => p[1], p => p[0], StringComparer.Ordinal);
+        foreach (var (cie, _) in Pairs)
+        {
+            var bytes = File.ReadAllBytes(Path.Combine(Originals, cie + ".csv"));
+            Assert.Equal(sums[cie + ".csv"], Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(bytes)));
+            // The metadata file names the same checksum.
+            Assert.Contains(sums[cie + ".csv"], File.ReadAllText(Path.Combine(Originals, cie + ".csv_metadata.json")), StringComparison.OrdinalIgnoreCase);
+        }
+    }
+
+    [Fact]
     public void Every_embedded_value_equals_the_CIE_published_file()
     {
-        // Source: the CIE datasets in ../shared/cie (byte-identical to the CIE's files, SHA-256 checked there).
+        // Source: the CIE datasets kept unchanged in data-cie/originals (SHA-256 checked by the test above).
         int compared = 0;
         foreach (var (cie, lumen) in Pairs)
         {
             var table = CieTables.Load(lumen);
-            var lines = File.ReadAllLines(Path.Combine(SharedFolder.Path!, "cie", cie + ".csv"))
+            var lines = File.ReadAllLines(Path.Combine(Originals, cie + ".csv"))
                 .Select(l => l.Trim('\uFEFF', ' ')).Where(l => l.Length > 0).ToArray();
             Assert.Equal(lines.Length, table.Count);
             for (int r = 0; r < lines.Length; r++)
