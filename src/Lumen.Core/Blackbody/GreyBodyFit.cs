@@ -8,7 +8,7 @@ namespace Lumen.Blackbody;
 /// Least-squares fit of A·(1 + s·(λ − 560 nm)/100 nm)·L(λ, T) (a grey body, optionally with a slowly varying
 /// emissivity) to a measured spectrum.
 /// </summary>
-/// <remarks>Methods note planck.md §4: for each trial T the gains are linear and solved in closed form; T is
+/// <remarks>docs/methods/planck.md §4: for each trial T the gains are linear and solved in closed form; T is
 /// found by a scan in mired (500–50000 K) and golden-section refinement. The 95 % interval on T comes from
 /// the Gauss–Newton covariance σ²(JᵀJ)⁻¹ with σ² = RSS/(n − p) and Student's t (MathNet.Numerics). A relative
 /// RMS residual above 3 % marks the source as not thermal (LEDs, discharge lamps), where the temperature

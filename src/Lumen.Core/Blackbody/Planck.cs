@@ -11,7 +11,7 @@ public static class Planck
     /// <param name="constants">c1, c2 and n.</param>
     /// <returns>Spectral radiance, W·sr⁻¹·m⁻³; 0 where exp overflows (x &gt; 700).</returns>
     /// <exception cref="ArgumentOutOfRangeException">Non-positive wavelength or temperature.</exception>
-    /// <remarks>Methods note planck.md §1 (CIE 15:2004 App. E form); uses expm1 for precision at small x.
+    /// <remarks>docs/methods/planck.md §1 (CIE 15:2004 App. E form); uses expm1 for precision at small x.
     /// Check value: L(500 nm, 5500 K) = 2.047 270 19e13 W·sr⁻¹·m⁻³ with c1 = 3.741771e-16, c2 = 1.4388e-2.</remarks>
     public static double SpectralRadiancePerMetre(double wavelengthMetres, double temperatureKelvin, PlanckConstants constants)
     {

@@ -7,7 +7,7 @@ namespace Lumen.Blackbody;
 /// </summary>
 /// <remarks>
 /// <para>Exact points come from Planck's law summed against the CIE 1931 2° colour-matching functions at
-/// 1 nm from 360 to 830 nm (methods note cct.md §2, recommended construction), with the first and second
+/// 1 nm from 360 to 830 nm (docs/methods/cct.md §2, recommended construction), with the first and second
 /// derivatives with respect to mired in closed form (∂L/∂m from Planck's law, then the quotient rule for
 /// u = 4X/(X+15Y+3Z), v = 6Y/(X+15Y+3Z)).</para>
 /// <para>For speed the locus is tabulated once at every whole mired from 1 to 2000 (10⁶ K to 500 K) with

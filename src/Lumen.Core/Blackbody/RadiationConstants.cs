@@ -1,7 +1,7 @@
 namespace Lumen.Blackbody;
 
 /// <summary>Radiation constants derived from the exact SI values of h, c and k (CODATA 2018).</summary>
-/// <remarks>Methods note planck.md §2.1: deriving the constants in double precision reproduces the
+/// <remarks>docs/methods/planck.md §2.1: deriving the constants in double precision reproduces the
 /// CODATA digits (c1 = 3.741 771 852e-16 W·m², c2 = 1.438 776 877e-2 m·K, b = 2.897 771 955e-3 m·K,
 /// σ = 5.670 374 419e-8 W·m⁻²·K⁻⁴).</remarks>
 public static class RadiationConstants

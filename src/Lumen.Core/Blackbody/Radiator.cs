@@ -6,7 +6,7 @@ namespace Lumen.Blackbody;
 /// Blackbody and grey-body quantities: Wien peak, Stefan–Boltzmann exitance, net radiated power, spectral
 /// radiance over a band, and the classical approximations.
 /// </summary>
-/// <remarks>Methods note planck.md §§1–3, 5: constants from the exact SI h, c, k (CODATA 2018) for absolute
+/// <remarks>docs/methods/planck.md §§1–3, 5: constants from the exact SI h, c, k (CODATA 2018) for absolute
 /// work; M = εσT⁴; net exchange with large black surroundings P = σ·A·ε·(T⁴ − T0⁴); Wien peak λ_max = b/T.</remarks>
 public static class Radiator
 {

@@ -3,7 +3,7 @@ namespace Lumen.Colorimetry;
 /// <summary>
 /// A chromaticity in the CIE 1931 (x, y), CIE 1960 UCS (u, v) and CIE 1976 UCS (u′, v′) diagrams.
 /// </summary>
-/// <remarks>Formulas of CIE 15:2004 as given in methods note colorimetry.md §2: u = 4X/(X+15Y+3Z),
+/// <remarks>Formulas of CIE 15:2004 as given in docs/methods/colorimetry.md §2: u = 4X/(X+15Y+3Z),
 /// v = 6Y/(X+15Y+3Z), u′ = u, v′ = 1.5·v. A black stimulus (X+Y+Z = 0) has no chromaticity: its
 /// components are NaN and <see cref="IsDefined"/> is false, so callers report it instead of printing NaN.</remarks>
 public readonly record struct Chromaticity

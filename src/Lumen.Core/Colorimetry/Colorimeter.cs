@@ -8,7 +8,7 @@ namespace Lumen.Colorimetry;
 /// <summary>CIE tristimulus integration (CIE 15 summation).</summary>
 public static class Colorimeter
 {
-    /// <summary>Maximum luminous efficacy for photopic vision, K_m = 683.002 lm/W (CIE ILV 17-730; methods note colorimetry.md §1.2).</summary>
+    /// <summary>Maximum luminous efficacy for photopic vision, K_m = 683.002 lm/W (CIE ILV 17-730; docs/methods/colorimetry.md §1.2).</summary>
     public const double KmLumensPerWatt = 683.002;
 
     /// <summary>Raw sums Σ S·x̄·Δλ, Σ S·ȳ·Δλ, Σ S·z̄·Δλ (k = 1) of samples on a regular grid.</summary>

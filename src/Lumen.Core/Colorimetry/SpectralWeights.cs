@@ -11,7 +11,7 @@ namespace Lumen.Colorimetry;
 /// </summary>
 /// <remarks>Built once per (table, columns, grid) and cached; thread-safe. Outside the CIE table's range
 /// the weight is 0, i.e. the summation runs over the overlap of the spectrum and the table (CIE 15
-/// summation, methods note colorimetry.md §1.1).</remarks>
+/// summation, docs/methods/colorimetry.md §1.1).</remarks>
 internal sealed class SpectralWeights
 {
     private static readonly ConcurrentDictionary<(string Table, string Columns, int Start, int Step, int Count), SpectralWeights> Cache = new();

@@ -7,7 +7,7 @@ namespace Lumen.Conformance;
 /// ANSI C78.377-2017 nominal CCT categories for solid-state lighting: targets, tolerances and quadrangles.
 /// </summary>
 /// <remarks>
-/// Methods note conformance.md §1: target CCT ± tolerance and centres from a public summary of the 2015/2017
+/// docs/methods/conformance.md §1: target CCT ± tolerance and centres from a public summary of the 2015/2017
 /// editions; Duv target from the flexible-CCT formula Duv_T(T) = 57700/T² − 44.6/T + 0.0085 (from memory in
 /// the note, but it reproduces the published 2015 corners within 2e-4); Duv tolerance ±0.006. Corners are
 /// built as xy(T_lo, Duv_T(T_lo) + 0.006), xy(T_hi, Duv_T(T_hi) + 0.006), xy(T_hi, Duv_T(T_hi) − 0.006),
@@ -40,7 +40,7 @@ public static class AnsiC78377
     ];
 
     /// <summary>The 2008-edition categories, 2700 K to 6500 K (targets, tolerances, tabulated Duv and centres as
-    /// reproduced in GOST 34819-2021 Table K.1; shared/reference ids ansi_c78377.*).</summary>
+    /// reproduced in GOST 34819-2021 Table K.1; check values in tests/Lumen.Core.Tests/ConformanceTests.cs).</summary>
     public static IReadOnlyList<AnsiCategory> Categories2008 { get; } =
     [
         new(2700, 2725, 145, Chromaticity.FromXy(0.4578, 0.4101), false, AnsiEdition.Ed2008, 0.000),

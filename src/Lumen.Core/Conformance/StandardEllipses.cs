@@ -7,7 +7,7 @@ namespace Lumen.Conformance;
 /// Standard lamp-colour 1-step ellipses and n-step / Δu′v′ distances.
 /// </summary>
 /// <remarks>
-/// Methods note conformance.md §2.2: the six ANSI C78.376 / IEC 60081-style 1-step ellipses (a, b, θ; from
+/// docs/methods/conformance.md §2.2: the six ANSI C78.376 / IEC 60081-style 1-step ellipses (a, b, θ; from
 /// memory in the note — the 3000, 4000 and 5000 K rows corroborated by a public 3-step table and the IEC
 /// metric coefficients). Ellipses about any other centre take the shape of the standard ellipse nearest in
 /// CCT (a documented choice). The Δu′v′ circle alternative follows CIE TN 001:2014 with ≈ 0.0011 per step

@@ -6,7 +6,7 @@ namespace Lumen.Descriptors;
 
 /// <summary>Spectral descriptors and CIE 15 dominant wavelength / excitation purity.</summary>
 /// <remarks>
-/// Dominant wavelength per CIE 15:2004 §9.1 (methods note colorimetry.md §4): the ray from the achromatic
+/// Dominant wavelength per CIE 15:2004 §9.1 (docs/methods/colorimetry.md §4): the ray from the achromatic
 /// point N through the sample S meets the spectrum locus (CIE 1931 2°, 360–830 nm at 1 nm) at D, with λd
 /// interpolated linearly along the locus segment; if it meets the purple line instead, the opposite ray
 /// gives the complementary wavelength, reported negative. Excitation purity p_e = |NS|/|ND|. For light

@@ -9,7 +9,7 @@ namespace Lumen.Photometry;
 /// daylight (D65) illuminance (EDI) and daylight efficacy ratio (DER).
 /// </summary>
 /// <remarks>
-/// Methods note photometry-nonvisual.md §4: E_α = ΣS·s_α·Δλ; K_α,v = E_α / (K_m·ΣS·V·Δλ); the D65 reference
+/// docs/methods/photometry-nonvisual.md §4: E_α = ΣS·s_α·Δλ; K_α,v = E_α / (K_m·ΣS·V·Δλ); the D65 reference
 /// K_α,v(D65) is computed once from the CIE D65 table (1 nm, 380–780 nm) with the same code rather than
 /// hard-coded (tests check it rounds to the published values, e.g. melanopic 1.3262 mW/lm); DER = K_α,v/K_α,v(D65);
 /// EDI = E_α / K_α,v(D65) = DER·E_v. Action spectra: the CIE S 026 dataset; blank cells are zero.

@@ -4,7 +4,7 @@ using Lumen.Spectra;
 
 namespace Lumen.Photometry;
 
-/// <summary>Photopic and scotopic photometry, LER and S/P ratio (CIE 018:2019, methods note photometry-nonvisual.md).</summary>
+/// <summary>Photopic and scotopic photometry, LER and S/P ratio (CIE 018:2019, docs/methods/photometry-nonvisual.md).</summary>
 /// <remarks>
 /// Q_v = K_m·ΣS·V·Δλ with K_m = 683.002 lm/W and V(λ) the CIE photopic luminous efficiency (360–830 nm);
 /// Q′_v = K′_m·ΣS·V′·Δλ with K′_m = 1700.06 lm/W and V′(λ) the CIE scotopic function (380–780 nm), both
@@ -14,7 +14,7 @@ namespace Lumen.Photometry;
 /// </remarks>
 public static class Photometer
 {
-    /// <summary>K_m, lm/W (CIE; methods note colorimetry.md §1.2).</summary>
+    /// <summary>K_m, lm/W (CIE; docs/methods/colorimetry.md §1.2).</summary>
     public const double KmLumensPerWatt = Colorimeter.KmLumensPerWatt;
 
     /// <summary>K′_m, lm/W (scotopic; W&amp;S).</summary>

@@ -4,7 +4,7 @@ namespace Lumen.Rendition;
 /// The CIECAM02 forward model (CIE 159:2004) for a fixed white and viewing conditions, with the per-white
 /// terms computed once.
 /// </summary>
-/// <remarks>Constants and steps as in methods note cie224-tm30.md §4 (confirmed against colour-science).
+/// <remarks>Constants and steps as in docs/methods/cie224-tm30.md §4 (confirmed against colour-science).
 /// Check: XYZ = (19.01, 20.00, 21.78), white (95.05, 100, 108.88), L_A = 318.31, Y_b = 20, average surround →
 /// J = 41.7310911, M = 0.1088421, h = 219.0484326 (colour-science doctest).</remarks>
 internal sealed class Ciecam02

@@ -8,7 +8,7 @@ namespace Lumen.Rendition;
 /// CIE 13.3-1995 colour rendering index: Ra and the special indices R1–R14.
 /// </summary>
 /// <remarks>
-/// Steps of methods note cri.md §3 (CIE 13.3-1995, constants confirmed against the colour-science library):
+/// Steps of docs/methods/cri.md §3 (CIE 13.3-1995, constants confirmed against the colour-science library):
 /// test and reference normalised to Y = 100 with the CIE 1931 2° observer; reference Planckian below 5000 K,
 /// CIE daylight from 5000 K; von Kries-type adaptive shift in CIE 1960 uv with
 /// c = (4 − u − 10v)/v, d = (1.708v + 0.404 − 1.481u)/v; CIE 1964 U*V*W* with the reference white as origin;

@@ -8,7 +8,7 @@ namespace Lumen.Rendition;
 /// CIE 224:2017 colour fidelity index Rf with the IES TM-30-20 gamut index Rg and hue-bin values.
 /// </summary>
 /// <remarks>
-/// Methods note cie224-tm30.md: 380–780 nm at the spectrum's own 1 nm or 5 nm step with the matching CES table
+/// docs/methods/cie224-tm30.md: 380–780 nm at the spectrum's own 1 nm or 5 nm step with the matching CES table
 /// (zero outside the measured range), CIE 1964 10° observer for everything except the CCT (1931 2°), reference
 /// Planckian below 4000 K, CIE daylight above 5000 K, blend between; CIECAM02 with L_A = 100 cd/m², Y_b = 20,
 /// average surround, D = 1; CAM02-UCS; R(ΔE) = 10·ln(exp((100 − 6.73·ΔE)/10) + 1) with ΔE averaged before

@@ -9,7 +9,7 @@ namespace Lumen.Rendition;
 /// CIE daylight at any CCT, and the CIE 224 blend.
 /// </summary>
 /// <remarks>
-/// CIE daylight (CIE 15:2004 §3.1, methods note cri.md §2.1): x_D from the cubic in 1/T (4000–7000 K and
+/// CIE daylight (CIE 15:2004 §3.1, docs/methods/cri.md §2.1): x_D from the cubic in 1/T (4000–7000 K and
 /// 7000–25000 K branches), y_D = −3x_D² + 2.870x_D − 0.275, M1, M2 rounded to three decimals as CIE 15 does
 /// to reproduce the tabulated D illuminants, S = S0 + M1·S1 + M2·S2 with S0, S1, S2 linearly interpolated from
 /// the CIE's 5 nm table. The CCT is used as given (no 1.4388/1.4380 factor; that only names D50…D75).
@@ -123,7 +123,7 @@ public static class ReferenceIlluminants
 
     /// <summary>
     /// CIE 224:2017 reference: Planckian below 4000 K, CIE daylight above 5000 K, and between them the blend
-    /// (1 − m)·P/Y_P + m·D/Y_D with m = (T − 4000)/1000 and Y from the 1931 2° ȳ (methods note cie224-tm30.md §2).
+    /// (1 − m)·P/Y_P + m·D/Y_D with m = (T − 4000)/1000 and Y from the 1931 2° ȳ (docs/methods/cie224-tm30.md §2).
     /// </summary>
     /// <param name="cctKelvin">Test CCT, K.</param>
     /// <param name="startNm">Grid start.</param>

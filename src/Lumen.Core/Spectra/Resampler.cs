@@ -4,7 +4,7 @@ namespace Lumen.Spectra;
 /// The one resampler: brings any spectrum onto a regular whole-nanometre grid for the CIE sums.
 /// </summary>
 /// <remarks>
-/// Policy (methods note colorimetry.md §1.4 and shared/reference/README.md, "Sampling decides the CIE 15
+/// Policy (docs/methods/colorimetry.md §1.4 and the check values of tests/Lumen.Core.Tests, "Sampling decides the CIE 15
 /// tables"): a spectrum already on a regular 1 nm or 5 nm grid aligned with the CIE tables is summed at its
 /// own step, which reproduces the CIE 15 tabulated values (interpolating spiky 5 nm spectra moves CCT by up
 /// to 8 K). Any other regular grid with at least 6 samples is interpolated to 1 nm by Sprague (1880) as
@@ -46,7 +46,7 @@ public static class Resampler
     /// <param name="stepNm">Uniform step, nm (positive).</param>
     /// <param name="y">At least 6 samples.</param>
     /// <returns>Samples at every whole nm from ceil(first) to floor(last).</returns>
-    /// <remarks>Coefficients as in methods note colorimetry.md §1.4 (CIE 167:2005 §9.2.4). Returns the
+    /// <remarks>Coefficients as in docs/methods/colorimetry.md §1.4 (CIE 167:2005 §9.2.4). Returns the
     /// original values at the nodes; may overshoot slightly near sharp lines (kept, not clipped).</remarks>
     /// <exception cref="ArgumentException">Fewer than 6 samples or a non-positive step.</exception>
     public static RegularSamples SpragueToOneNm(double firstNm, double stepNm, ReadOnlySpan<double> y)

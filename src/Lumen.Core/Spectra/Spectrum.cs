@@ -7,8 +7,8 @@ namespace Lumen.Spectra;
 /// <remarks>
 /// Construction rejects NaN or infinite values, non-ascending or duplicate wavelengths and fewer than
 /// three samples, with a message naming the origin. Small negative values (instrument noise after dark
-/// subtraction) are kept, because clipping biases integrals (CIE 167 practice, see methods note
-/// colorimetry.md §1.5), and are counted in <see cref="NegativeSampleCount"/>.
+/// subtraction) are kept, because clipping biases integrals (CIE 167 practice, see
+/// docs/methods/colorimetry.md §1.4), and are counted in <see cref="NegativeSampleCount"/>.
 /// </remarks>
 public sealed class Spectrum
 {

@@ -26,7 +26,7 @@ public static class CctSolver
     /// <param name="cctKelvin">CCT in K, 500 to 10⁶.</param>
     /// <param name="duv">Duv, positive above the locus.</param>
     /// <param name="c2">The c2 convention.</param>
-    /// <returns>The chromaticity: the locus point offset by Duv along the locus normal (methods note cct.md §6,
+    /// <returns>The chromaticity: the locus point offset by Duv along the locus normal (docs/methods/cct.md §6,
     /// with the analytic tangent instead of a finite difference).</returns>
     /// <exception cref="ArgumentOutOfRangeException">CCT outside 500–10⁶ K or non-finite Duv.</exception>
     public static Chromaticity ToChromaticity(double cctKelvin, double duv, C2Convention c2 = C2Convention.Cie15Its90)

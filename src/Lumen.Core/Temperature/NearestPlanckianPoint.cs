@@ -7,7 +7,7 @@ namespace Lumen.Temperature;
 /// per ANSI C78.377), solved by scan + safeguarded Newton on the quintic-Hermite locus table.
 /// </summary>
 /// <remarks>
-/// Methods note cct.md §3 ("exact method", the recommended reference): the minimum of the distance is where
+/// docs/methods/cct.md §3 ("exact method", the recommended reference): the minimum of the distance is where
 /// g(m) = (u_P − u)·u_P′ + (v_P − v)·v_P′ = 0. A scan of every 40th and then every 5th mired node brackets the minimum; Newton
 /// steps with the analytic g′ converge in 3–5 iterations, with bisection whenever a step leaves the bracket.
 /// Agrees with a brute-force golden-section search on the exact locus to |ΔT| &lt; 0.01 K and

@@ -6,7 +6,7 @@ namespace Lumen.Temperature;
 /// <remarks>
 /// A. R. Robertson, "Computation of correlated color temperature and distribution temperature",
 /// JOSA 58(11):1528–1535 (1968); table as in Wyszecki &amp; Stiles, Color Science 2nd ed., Table 1(3.11),
-/// with the u at 325 mired corrected from the misprinted 0.24702 to 0.24792 (methods note cct.md §5).
+/// with the u at 325 mired corrected from the misprinted 0.24702 to 0.24792 (docs/methods/cct.md §5).
 /// Accuracy against the exact locus: ≤ 0.6 K at 2000–6500 K, up to ~17 K at 18 000 K. Undefined below
 /// 1667 K (600 mired).
 /// </remarks>
