@@ -6,7 +6,7 @@ naming every column (wavelength column `wavelength_nm`), then the CIE's numbers 
 text, digit for digit. A cell the CIE publishes as NaN ("no value in the source
 publication"; the CIE metadata says to extrapolate with zero) is written empty.
 
-Usage: python3 tools/convert_cie.py [../shared/cie] [data-cie]
+Usage: python3 tools/convert_cie.py [data-cie/originals] [data-cie]
 Re-running it rewrites data-cie/*.csv and data-cie/README.md.
 """
 import hashlib
@@ -47,7 +47,7 @@ def clean_title(t: str) -> str:
 
 
 def main() -> None:
-    src = sys.argv[1] if len(sys.argv) > 1 else os.path.join("..", "shared", "cie")
+    src = sys.argv[1] if len(sys.argv) > 1 else os.path.join("data-cie", "originals")
     dst = sys.argv[2] if len(sys.argv) > 2 else "data-cie"
     os.makedirs(dst, exist_ok=True)
     rows_md = []
@@ -86,7 +86,7 @@ README_HEAD = """# data-cie: the CIE tables Lumen uses
 
 Every table here is converted from a dataset that the International Commission on
 Illumination (CIE) publishes (https://cie.co.at/data-tables) by `tools/convert_cie.py`,
-from the reference copies in `../shared/cie/`. The build embeds these files into
+from the CIE's published originals kept unchanged in `originals/` (with their metadata and published SHA-256). The build embeds these files into
 `Lumen.Core`, so the `lumen` command works from any folder.
 
 ## Licence and attribution
@@ -102,8 +102,8 @@ same licence. Attribution form: International Commission on Illumination (CIE) (
 - Every number is the CIE's published text, digit for digit (nothing is rounded or re-scaled).
 - An empty cell is a value the CIE publishes as `NaN` ("no value in the source publication");
   the CIE metadata gives `extrapolationMethod: zero`, so Lumen reads an empty cell as 0.
-- A test (`tests/Lumen.Core.Tests/CieDataTests.cs`) compares every value with the CIE originals
-  in `../shared/cie/` when that folder exists.
+- A test (`tests/Lumen.Core.Tests/CieDataTests.cs`) checks the SHA-256 of every original in `originals/`
+  against `originals/SHA256SUMS` and compares every embedded value with it, in every clone.
 
 ## Tables
 | Lumen file | CIE file | Title | DOI | Year | Source publication | SHA-256 of the CIE original |
@@ -112,7 +112,7 @@ same licence. Attribution form: International Commission on Illumination (CIE) (
 
 README_TAIL = """
 Each SHA-256 is that of the CIE's published file (it equals the checksum in the CIE metadata
-record); `../shared/cie/verify.sh` checks the originals.
+record); `sha256sum --check originals/SHA256SUMS` (run in data-cie/) checks the originals.
 """
 
 if __name__ == "__main__":

@@ -19,7 +19,7 @@ public static class Assessor
     public const int ExpectedLastNm = 780;
 
     /// <summary>Assesses one spectrum.</summary>
-    /// <param name="spectrum">The spectrum.</param>
+    /// <param name="spectrum">The measured spectrum (relative or absolute; any grid the resampler accepts).</param>
     /// <param name="options">Options; null for defaults.</param>
     /// <returns>The assessment (never throws for valid spectra; problems become warnings).</returns>
     public static Assessment Assess(Spectrum spectrum, AssessmentOptions? options = null)
@@ -99,7 +99,7 @@ public static class Assessor
     /// reference or stray-light problem). Smaller negatives are only counted in the provenance; all are kept
     /// in the sums, because clipping biases low signals (CIE 167 practice).
     /// </summary>
-    /// <param name="spectrum">The spectrum.</param>
+    /// <param name="spectrum">The measured spectrum (relative or absolute; any grid the resampler accepts).</param>
     /// <returns>The warning, or null when there is nothing to say.</returns>
     internal static string? NegativeValueWarning(Spectrum spectrum)
     {
@@ -112,7 +112,7 @@ public static class Assessor
     }
 
     /// <summary>The warning for a spectrum that does not cover 380–780 nm.</summary>
-    /// <param name="spectrum">The spectrum.</param>
+    /// <param name="spectrum">The measured spectrum (relative or absolute; any grid the resampler accepts).</param>
     /// <returns>The warning, or null when the spectrum covers 380–780 nm.</returns>
     internal static string? CoverageWarning(Spectrum spectrum)
     {

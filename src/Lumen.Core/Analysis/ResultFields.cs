@@ -48,7 +48,7 @@ public static class ResultFields
     }
 
     /// <summary>JSON field name of a photometric quantity, unit in the name.</summary>
-    /// <param name="quantity">The quantity.</param>
+    /// <param name="quantity">The photometric quantity the input unit gives (illuminance, luminance, intensity or flux).</param>
     /// <returns>For example <c>illuminanceLux</c>.</returns>
     public static string PhotometricName(PhotometricQuantity quantity) => quantity switch
     {
@@ -59,7 +59,7 @@ public static class ResultFields
     };
 
     /// <summary>JSON field name of the scotopic counterpart of a photometric quantity.</summary>
-    /// <param name="quantity">The quantity.</param>
+    /// <param name="quantity">The photometric quantity the input unit gives (illuminance, luminance, intensity or flux).</param>
     /// <returns>For example <c>scotopicIlluminanceLux</c>.</returns>
     public static string ScotopicName(PhotometricQuantity quantity)
     {
@@ -79,7 +79,7 @@ public static class ResultFields
     };
 
     /// <summary>JSON name of an α-opic kind.</summary>
-    /// <param name="kind">The kind.</param>
+    /// <param name="kind">One of the five CIE S 026 α-opic quantities.</param>
     /// <returns>For example <c>sConeOpic</c>.</returns>
     public static string NonVisualName(AlphaOpicKind kind) => kind switch
     {
@@ -91,7 +91,7 @@ public static class ResultFields
     };
 
     /// <summary>Observer label used in every output: <c>2</c> or <c>10</c>.</summary>
-    /// <param name="observer">The observer.</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° observer.</param>
     /// <returns>The label.</returns>
     public static string ObserverLabel(Observer observer) => observer == Observer.Cie1931TwoDegree ? "2" : "10";
 

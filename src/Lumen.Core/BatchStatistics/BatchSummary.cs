@@ -9,8 +9,8 @@ namespace Lumen.BatchStatistics;
 /// <param name="Passed">Results that passed the spec.</param>
 /// <param name="Failed">Results that failed the spec.</param>
 /// <param name="Statistics">Mean/SD/min/max of key fields (cct.kelvin, cct.duv, cri.ra, cri.r9, fidelity.rf, fidelity.rg).</param>
-/// <param name="MeanUPrime">Mean u′.</param>
-/// <param name="MeanVPrime">Mean v′.</param>
+/// <param name="MeanUPrime">Mean CIE 1976 u′ of the units with a defined chromaticity.</param>
+/// <param name="MeanVPrime">Mean CIE 1976 v′ of the units with a defined chromaticity.</param>
 /// <param name="MaxPairwiseDeltaUPrimeVPrime">Largest Δu′v′ between any two units (convex-hull diameter).</param>
 /// <param name="StepsFromMean">Statistics of each unit's steps from the batch mean chromaticity.</param>
 /// <param name="StepsFromMeanP95">95th percentile of steps from the batch mean.</param>

@@ -49,7 +49,7 @@ public sealed class BatchSummaryBuilder
     internal void AddError() { _records++; _errors++; }
 
     /// <summary>Adds a result.</summary>
-    /// <param name="id">Record ID.</param>
+    /// <param name="id">The record's ID (name), used to list outliers.</param>
     /// <param name="chromaticity2Degree">Its 2° chromaticity.</param>
     /// <param name="pass">Pass/fail against the spec.</param>
     /// <param name="field">Field resolver (summary and limited fields).</param>

@@ -23,7 +23,7 @@ public sealed class RunningStatistics
     public double Max { get; private set; } = double.NaN;
 
     /// <summary>Adds a value (non-finite values are ignored).</summary>
-    /// <param name="x">The value.</param>
+    /// <param name="x">The value to add, in the field's unit; NaN and infinities are ignored.</param>
     public void Add(double x)
     {
         if (!double.IsFinite(x)) return;

@@ -8,7 +8,7 @@ public static class Planck
     /// </summary>
     /// <param name="wavelengthMetres">Wavelength λ in metres (positive).</param>
     /// <param name="temperatureKelvin">Thermodynamic temperature T in K (positive).</param>
-    /// <param name="constants">c1, c2 and n.</param>
+    /// <param name="constants">The radiation constants c1L (W·m²/sr), c2 (m·K) and the refractive index n (1 for colorimetry).</param>
     /// <returns>Spectral radiance, W·sr⁻¹·m⁻³; 0 where exp overflows (x &gt; 700).</returns>
     /// <exception cref="ArgumentOutOfRangeException">Non-positive wavelength or temperature.</exception>
     /// <remarks>docs/methods/planck.md §1 (CIE 15:2004 App. E form); uses expm1 for precision at small x.
@@ -27,7 +27,7 @@ public static class Planck
     /// <summary>Spectral radiance in W·sr⁻¹·m⁻²·nm⁻¹.</summary>
     /// <param name="wavelengthNm">Wavelength in nm (positive).</param>
     /// <param name="temperatureKelvin">Temperature in K (positive).</param>
-    /// <param name="constants">c1, c2 and n.</param>
+    /// <param name="constants">The radiation constants c1L (W·m²/sr), c2 (m·K) and the refractive index n (1 for colorimetry).</param>
     /// <returns>Spectral radiance per nm of wavelength.</returns>
     public static double SpectralRadianceNm(double wavelengthNm, double temperatureKelvin, PlanckConstants constants) =>
         SpectralRadiancePerMetre(wavelengthNm * 1e-9, temperatureKelvin, constants) * 1e-9;
@@ -35,13 +35,13 @@ public static class Planck
     /// <summary>Spectral radiant exitance M = π·L in W·m⁻²·nm⁻¹.</summary>
     /// <param name="wavelengthNm">Wavelength in nm.</param>
     /// <param name="temperatureKelvin">Temperature in K.</param>
-    /// <param name="constants">c1, c2 and n.</param>
+    /// <param name="constants">The radiation constants c1L (W·m²/sr), c2 (m·K) and the refractive index n (1 for colorimetry).</param>
     /// <returns>Spectral exitance per nm.</returns>
     public static double SpectralExitanceNm(double wavelengthNm, double temperatureKelvin, PlanckConstants constants) =>
         Math.PI * SpectralRadianceNm(wavelengthNm, temperatureKelvin, constants);
 
     /// <summary>exp(x) − 1 without cancellation for small x.</summary>
-    /// <param name="x">Argument.</param>
+    /// <param name="x">Any finite real number.</param>
     /// <returns>e^x − 1.</returns>
     internal static double Expm1(double x)
     {

@@ -45,7 +45,7 @@ public static class Radiator
     /// <summary>Spectral radiance of an approximation, W·sr⁻¹·m⁻²·nm⁻¹ (CODATA constants).</summary>
     /// <param name="wavelengthNm">Wavelength, nm.</param>
     /// <param name="temperatureKelvin">Temperature, K.</param>
-    /// <param name="approximation">Which law.</param>
+    /// <param name="approximation">Planck's law itself, or the Wien or Rayleigh–Jeans approximation.</param>
     /// <returns>The radiance.</returns>
     public static double RadianceNm(double wavelengthNm, double temperatureKelvin, PlanckApproximation approximation)
     {
@@ -65,7 +65,7 @@ public static class Radiator
     /// <param name="emissivity">Emissivity in (0, 1].</param>
     /// <param name="fromNm">First wavelength.</param>
     /// <param name="toNm">Last wavelength.</param>
-    /// <param name="stepNm">Step.</param>
+    /// <param name="stepNm">Wavelength step, nm (positive).</param>
     /// <returns>The spectrum.</returns>
     public static Spectrum RadianceSpectrum(double temperatureKelvin, double emissivity, double fromNm, double toNm, double stepNm)
     {
@@ -79,7 +79,7 @@ public static class Radiator
     }
 
     /// <summary>Plain words for the colour of light at a CCT (for people, not a standard classification).</summary>
-    /// <param name="cctKelvin">CCT in K.</param>
+    /// <param name="cctKelvin">Colour temperature, K (positive).</param>
     /// <returns>For example "warm white".</returns>
     public static string ColorName(double cctKelvin) => cctKelvin switch
     {

@@ -48,7 +48,7 @@ public sealed class CieTable
     public ReadOnlySpan<double> Column(string column) => _columns[column];
 
     /// <summary>A column's value at a wavelength on the table's grid; 0 outside the table.</summary>
-    /// <param name="column">Column name.</param>
+    /// <param name="column">A column name of the table, as in its header (e.g. <c>y_bar</c>); case-sensitive.</param>
     /// <param name="wavelengthNm">Wavelength in nm, a grid point.</param>
     /// <returns>The value, or 0 outside the range.</returns>
     public double At(string column, int wavelengthNm)
@@ -60,7 +60,7 @@ public sealed class CieTable
     }
 
     /// <summary>One column as a relative spectrum.</summary>
-    /// <param name="column">Column name.</param>
+    /// <param name="column">A column name of the table, as in its header (e.g. <c>y_bar</c>); case-sensitive.</param>
     /// <returns>The spectrum, named after the column, origin <c>CIE table name</c>.</returns>
     public Spectrum ToSpectrum(string column)
     {

@@ -34,13 +34,13 @@ public static class CieTables
         .Select(n => n["data-cie/".Length..^".csv".Length]).OrderBy(n => n, StringComparer.Ordinal).ToArray();
 
     /// <summary>Colour-matching functions x̄, ȳ, z̄ of an observer, 360–830 nm at 1 nm.</summary>
-    /// <param name="observer">The observer.</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° standard observer.</param>
     /// <returns>Table with columns <c>x_bar</c>, <c>y_bar</c>, <c>z_bar</c> (2°) or <c>x_bar_10</c>… (10°).</returns>
     public static CieTable ColorMatchingFunctions(Observer observer) =>
         observer == Observer.Cie1931TwoDegree ? Cmf1931TwoDegree : Cmf1964TenDegree;
 
     /// <summary>Column names of the colour-matching functions of <paramref name="observer"/>.</summary>
-    /// <param name="observer">The observer.</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° standard observer.</param>
     /// <returns>(x̄, ȳ, z̄) column names.</returns>
     public static (string X, string Y, string Z) CmfColumns(Observer observer) =>
         observer == Observer.Cie1931TwoDegree ? ("x_bar", "y_bar", "z_bar") : ("x_bar_10", "y_bar_10", "z_bar_10");

@@ -35,7 +35,7 @@ public readonly record struct Chromaticity
     public bool IsDefined => double.IsFinite(SmallX) && double.IsFinite(SmallY);
 
     /// <summary>From tristimulus values.</summary>
-    /// <param name="t">X, Y, Z.</param>
+    /// <param name="t">Tristimulus values on any common scale (their sum may not be zero for a defined result).</param>
     /// <returns>The chromaticity (undefined when X+Y+Z = 0).</returns>
     public static Chromaticity FromXyz(Tristimulus t)
     {
@@ -46,8 +46,8 @@ public readonly record struct Chromaticity
     }
 
     /// <summary>From CIE 1931 x, y.</summary>
-    /// <param name="x">x.</param>
-    /// <param name="y">y.</param>
+    /// <param name="x">CIE 1931 x, 0–1.</param>
+    /// <param name="y">CIE 1931 y, 0–1.</param>
     /// <returns>The chromaticity.</returns>
     public static Chromaticity FromXy(double x, double y)
     {
@@ -56,8 +56,8 @@ public readonly record struct Chromaticity
     }
 
     /// <summary>From CIE 1960 u, v.</summary>
-    /// <param name="u">u.</param>
-    /// <param name="v">v.</param>
+    /// <param name="u">CIE 1960 u, 0–0.7.</param>
+    /// <param name="v">CIE 1960 v, 0–0.4.</param>
     /// <returns>The chromaticity; x = 3u/(2u − 8v + 4), y = 2v/(2u − 8v + 4).</returns>
     public static Chromaticity FromUv(double u, double v)
     {
@@ -66,8 +66,8 @@ public readonly record struct Chromaticity
     }
 
     /// <summary>From CIE 1976 u′, v′.</summary>
-    /// <param name="uPrime">u′.</param>
-    /// <param name="vPrime">v′.</param>
+    /// <param name="uPrime">CIE 1976 u′, 0–0.7.</param>
+    /// <param name="vPrime">CIE 1976 v′, 0–0.6.</param>
     /// <returns>The chromaticity.</returns>
     public static Chromaticity FromUPrimeVPrime(double uPrime, double vPrime) => FromUv(uPrime, vPrime / 1.5);
 

@@ -13,7 +13,7 @@ public static class Colorimeter
 
     /// <summary>Raw sums Σ S·x̄·Δλ, Σ S·ȳ·Δλ, Σ S·z̄·Δλ (k = 1) of samples on a regular grid.</summary>
     /// <param name="samples">Spectrum on a regular whole-nm grid.</param>
-    /// <param name="observer">The observer.</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° observer.</param>
     /// <returns>The unnormalised tristimulus values.</returns>
     public static Tristimulus RawSums(RegularSamples samples, Observer observer)
     {
@@ -28,9 +28,9 @@ public static class Colorimeter
     private static readonly ConcurrentDictionary<(Observer, int, int, int), SpectralWeights> CmfCache = new();
 
     /// <summary>Colour-matching-function weights (x̄Δλ, ȳΔλ, z̄Δλ) of an observer on a grid, cached without allocation per call.</summary>
-    /// <param name="observer">The observer.</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° observer.</param>
     /// <param name="startNm">First wavelength of the grid.</param>
-    /// <param name="stepNm">Step.</param>
+    /// <param name="stepNm">Grid step, whole nm (1 or 5).</param>
     /// <param name="count">Number of points.</param>
     /// <returns>Three weight arrays.</returns>
     internal static SpectralWeights CmfWeights(Observer observer, int startNm, int stepNm, int count)
@@ -44,7 +44,7 @@ public static class Colorimeter
 
     /// <summary>Relative tristimulus values, normalised so that Y = 100 (CIE 15, k = 100/ΣSȳΔλ).</summary>
     /// <param name="samples">Spectrum on a regular whole-nm grid.</param>
-    /// <param name="observer">The observer.</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° observer.</param>
     /// <returns>X, Y = 100, Z; NaN components for a spectrum with ΣSȳ = 0.</returns>
     public static Tristimulus Relative(RegularSamples samples, Observer observer)
     {
@@ -53,8 +53,8 @@ public static class Colorimeter
     }
 
     /// <summary>Relative tristimulus values (Y = 100) of any spectrum, resampled by the project's one policy.</summary>
-    /// <param name="spectrum">The spectrum.</param>
-    /// <param name="observer">The observer.</param>
+    /// <param name="spectrum">The measured spectrum (any grid the resampler accepts).</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° observer.</param>
     /// <returns>X, Y = 100, Z.</returns>
     public static Tristimulus Relative(Spectrum spectrum, Observer observer) => Relative(Resampler.ForCieSums(spectrum), observer);
 }

@@ -34,7 +34,7 @@ public static class Srgb
     public static Tristimulus D65White { get; } = Tristimulus.FromChromaticity(Chromaticity.FromXy(0.3127, 0.3290), 1);
 
     /// <summary>sRGB transfer function (gamma encoding) of a linear value in [0, 1].</summary>
-    /// <param name="linear">Linear value.</param>
+    /// <param name="linear">Linear-light value, 0–1 (values outside are clipped).</param>
     /// <returns>Encoded value.</returns>
     public static double Encode(double linear) => linear <= 0.0031308 ? 12.92 * linear : 1.055 * Math.Pow(linear, 1 / 2.4) - 0.055;
 
@@ -62,7 +62,7 @@ public static class Srgb
     }
 
     /// <summary>8-bit sRGB of a colour (XYZ relative to D65, Y = 1 white), clipped into the gamut.</summary>
-    /// <param name="xyz">The colour.</param>
+    /// <param name="xyz">The colour as CIE XYZ with the white at Y = 1 (D65-adapted).</param>
     /// <returns>The 8-bit colour.</returns>
     public static Rgb8 ToRgb8(Tristimulus xyz)
     {

@@ -54,9 +54,9 @@ public static class AnsiC78377
     ];
 
     /// <summary>The category of an edition for a nominal CCT.</summary>
-    /// <param name="nominalKelvin">Nominal CCT.</param>
-    /// <param name="edition">Edition.</param>
-    /// <param name="category">The category.</param>
+    /// <param name="nominalKelvin">Nominal CCT, K: a fixed category (2200–6500 K) or a flexible value 2700–6500 K in 100 K steps.</param>
+    /// <param name="edition">The ANSI C78.377 edition whose construction applies (2017 default, or 2008).</param>
+    /// <param name="category">The category found, or null when there is none.</param>
     /// <returns>False when none (the 2008 edition has no flexible or 2200/2500 K categories).</returns>
     public static bool TryGetCategory(int nominalKelvin, AnsiEdition edition, out AnsiCategory category)
     {
@@ -66,13 +66,13 @@ public static class AnsiC78377
     }
 
     /// <summary>The flexible-CCT target Duv: 57700/T² − 44.6/T + 0.0085.</summary>
-    /// <param name="cctKelvin">CCT, K.</param>
+    /// <param name="cctKelvin">CCT, K (the formula is meant for about 2200–6500 K).</param>
     /// <returns>Target Duv.</returns>
     public static double TargetDuv(double cctKelvin) => 57700 / (cctKelvin * cctKelvin) - 44.6 / cctKelvin + 0.0085;
 
     /// <summary>The category for a nominal CCT: a fixed one, or a flexible one (2700–6500 K in 100 K steps).</summary>
     /// <param name="nominalKelvin">Nominal CCT, K.</param>
-    /// <param name="category">The category.</param>
+    /// <param name="category">The category found, or null when there is none.</param>
     /// <returns>False when no category exists for that value.</returns>
     public static bool TryGetCategory(int nominalKelvin, out AnsiCategory category)
     {
@@ -88,8 +88,8 @@ public static class AnsiC78377
     }
 
     /// <summary>The quadrangle between two CCTs with a Duv centre line ± 0.006.</summary>
-    /// <param name="lowKelvin">T_lo.</param>
-    /// <param name="highKelvin">T_hi.</param>
+    /// <param name="lowKelvin">Lower CCT limit of the quadrangle (target − tolerance), K.</param>
+    /// <param name="highKelvin">Upper CCT limit of the quadrangle (target + tolerance), K.</param>
     /// <param name="centreDuv">Duv of the centre line at a CCT (the flexible formula, or a constant).</param>
     /// <returns>The quadrangle.</returns>
     public static Quadrangle BuildQuadrangle(double lowKelvin, double highKelvin, Func<double, double> centreDuv)

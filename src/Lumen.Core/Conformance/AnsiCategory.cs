@@ -5,7 +5,7 @@ namespace Lumen.Conformance;
 
 /// <summary>One ANSI C78.377 nominal CCT category.</summary>
 /// <param name="NominalCctKelvin">Nominal CCT, K (e.g. 3000).</param>
-/// <param name="TargetCctKelvin">Target CCT, K.</param>
+/// <param name="TargetCctKelvin">Target CCT of the category, K (e.g. 3045 for the 3000 K category).</param>
 /// <param name="CctToleranceKelvin">CCT tolerance ±, K.</param>
 /// <param name="PublishedCentre">Centre (x, y) as published (null for flexible categories).</param>
 /// <param name="Flexible">True for a flexible-CCT category (tolerance interpolated — a stop-gap, see remarks of <see cref="AnsiC78377"/>).</param>

@@ -52,7 +52,7 @@ public sealed class PreparedSpec
     }
 
     /// <summary>The 1-step ellipse used for a target: the standard shape of its category, or the nearest standard shape.</summary>
-    /// <param name="target">The target.</param>
+    /// <param name="target">The chromaticity target (nominal CCT, xy, u′v′ or CCT + Duv).</param>
     /// <returns>The ellipse centred on the target.</returns>
     public static StepEllipse EllipseFor(ChromaticityTarget target)
     {

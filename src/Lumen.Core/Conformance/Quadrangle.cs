@@ -11,8 +11,8 @@ public sealed record Quadrangle(IReadOnlyList<Chromaticity> Corners)
     /// Signed distance (in xy units) from a point to the nearest edge: positive inside, negative outside,
     /// zero on the boundary (a point on the boundary conforms).
     /// </summary>
-    /// <param name="x">x.</param>
-    /// <param name="y">y.</param>
+    /// <param name="x">CIE 1931 x of the point, 0–1.</param>
+    /// <param name="y">CIE 1931 y of the point, 0–1.</param>
     /// <returns>The signed distance.</returns>
     public double SignedDistance(double x, double y)
     {
@@ -36,8 +36,8 @@ public sealed record Quadrangle(IReadOnlyList<Chromaticity> Corners)
     }
 
     /// <summary>True when the point is inside or on the boundary.</summary>
-    /// <param name="x">x.</param>
-    /// <param name="y">y.</param>
+    /// <param name="x">CIE 1931 x of the point, 0–1.</param>
+    /// <param name="y">CIE 1931 y of the point, 0–1.</param>
     /// <returns>Conformance of the point.</returns>
     public bool Contains(double x, double y) => SignedDistance(x, y) >= -1e-12;
 

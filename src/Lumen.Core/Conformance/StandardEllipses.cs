@@ -30,8 +30,8 @@ public static class StandardEllipses
     };
 
     /// <summary>A 1-step ellipse about any centre, shaped like the standard ellipse nearest in CCT.</summary>
-    /// <param name="x">Centre x.</param>
-    /// <param name="y">Centre y.</param>
+    /// <param name="x">CIE 1931 x of the centre, 0–1.</param>
+    /// <param name="y">CIE 1931 y of the centre, 0–1.</param>
     /// <returns>The ellipse.</returns>
     public static StepEllipse About(double x, double y)
     {

@@ -41,7 +41,7 @@ public sealed record StepEllipse(Chromaticity Centre, double A, double B, double
     public double Steps(Chromaticity c) => Steps(c.SmallX, c.SmallY);
 
     /// <summary>A point on the n-step ellipse at parameter angle φ (for drawing).</summary>
-    /// <param name="steps">n.</param>
+    /// <param name="steps">The step count n of the ellipse to draw (≥ 0).</param>
     /// <param name="phiRadians">Parameter angle.</param>
     /// <returns>The point.</returns>
     public Chromaticity PointAt(double steps, double phiRadians)

@@ -71,10 +71,10 @@ public static class SpectralDescriptors
     }
 
     /// <summary>Dominant or complementary wavelength and excitation purity of (x, y) seen from white (xn, yn).</summary>
-    /// <param name="x">Sample x.</param>
-    /// <param name="y">Sample y.</param>
-    /// <param name="xn">White x.</param>
-    /// <param name="yn">White y.</param>
+    /// <param name="x">CIE 1931 2° x of the sample, 0–1.</param>
+    /// <param name="y">CIE 1931 2° y of the sample, 0–1.</param>
+    /// <param name="xn">x of the achromatic (white) point, 0–1; 1/3 for the equal-energy point E.</param>
+    /// <param name="yn">y of the achromatic (white) point, 0–1.</param>
     /// <returns>The result, or null when the sample coincides with the white point.</returns>
     public static DominantWavelengthResult? Dominant(double x, double y, double xn, double yn)
     {

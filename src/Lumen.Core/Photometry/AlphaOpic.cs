@@ -24,7 +24,7 @@ public static class AlphaOpic
     public static IReadOnlyList<double> D65EfficacyMilliwattsPerLumen => D65Efficacy.Value;
 
     /// <summary>The action-spectrum column of a kind in data-cie.</summary>
-    /// <param name="kind">The kind.</param>
+    /// <param name="kind">One of the five CIE S 026 α-opic quantities.</param>
     /// <returns>Column name.</returns>
     public static string ColumnOf(AlphaOpicKind kind) => Columns[(int)kind];
 

@@ -55,7 +55,7 @@ public static class Photometer
     };
 
     /// <summary>The photometric unit symbol of a quantity (lx, cd/m², cd, lm).</summary>
-    /// <param name="q">Quantity.</param>
+    /// <param name="q">The photometric quantity (illuminance, luminance, intensity or flux).</param>
     /// <returns>The symbol.</returns>
     public static string UnitSymbol(PhotometricQuantity q) => q switch
     {
@@ -66,7 +66,7 @@ public static class Photometer
     };
 
     /// <summary>The radiometric unit symbol that goes with a quantity (W/m², W/(sr·m²), W/sr, W).</summary>
-    /// <param name="q">Quantity.</param>
+    /// <param name="q">The photometric quantity (illuminance, luminance, intensity or flux).</param>
     /// <returns>The symbol.</returns>
     public static string RadiometricUnitSymbol(PhotometricQuantity q) => q switch
     {

@@ -31,9 +31,9 @@ public static class ReferenceIlluminants
     }
 
     /// <summary>CIE daylight relative SPD on a whole-nm grid.</summary>
-    /// <param name="cctKelvin">CCT in K.</param>
+    /// <param name="cctKelvin">CCT of the reference, K (1000–25 000 K for rendition; daylight from 4000 K).</param>
     /// <param name="startNm">First wavelength.</param>
-    /// <param name="stepNm">Step.</param>
+    /// <param name="stepNm">Grid step, whole nm (1 or 5 for the CIE tables).</param>
     /// <param name="count">Number of points.</param>
     /// <returns>The spectrum (S0 scale, ≈100 at 560 nm).</returns>
     public static double[] Daylight(double cctKelvin, int startNm, int stepNm, int count)
@@ -90,7 +90,7 @@ public static class ReferenceIlluminants
     /// <summary>Planckian relative spectral radiance on a whole-nm grid (c2 = 1.4388e-2 m·K), 1 at 560 nm.</summary>
     /// <param name="temperatureKelvin">Temperature in K.</param>
     /// <param name="startNm">First wavelength.</param>
-    /// <param name="stepNm">Step.</param>
+    /// <param name="stepNm">Grid step, whole nm (1 or 5 for the CIE tables).</param>
     /// <param name="count">Number of points.</param>
     /// <returns>The spectrum.</returns>
     public static double[] Planckian(double temperatureKelvin, int startNm, int stepNm, int count)
@@ -111,10 +111,10 @@ public static class ReferenceIlluminants
     }
 
     /// <summary>CIE 13.3 reference: Planckian below 5000 K, CIE daylight at and above.</summary>
-    /// <param name="cctKelvin">Test CCT, K.</param>
-    /// <param name="startNm">Grid start.</param>
-    /// <param name="stepNm">Grid step.</param>
-    /// <param name="count">Grid size.</param>
+    /// <param name="cctKelvin">CCT of the test source, K, 1000–25 000 K.</param>
+    /// <param name="startNm">First wavelength of the grid, whole nm.</param>
+    /// <param name="stepNm">Grid step, whole nm (1 or 5).</param>
+    /// <param name="count">Number of wavelengths on the grid (≥ 1).</param>
     /// <returns>The reference.</returns>
     public static ReferenceIlluminant ForCie13_3(double cctKelvin, int startNm, int stepNm, int count) =>
         cctKelvin < 5000
@@ -125,10 +125,10 @@ public static class ReferenceIlluminants
     /// CIE 224:2017 reference: Planckian below 4000 K, CIE daylight above 5000 K, and between them the blend
     /// (1 − m)·P/Y_P + m·D/Y_D with m = (T − 4000)/1000 and Y from the 1931 2° ȳ (docs/methods/cie224-tm30.md §2).
     /// </summary>
-    /// <param name="cctKelvin">Test CCT, K.</param>
-    /// <param name="startNm">Grid start.</param>
-    /// <param name="stepNm">Grid step.</param>
-    /// <param name="count">Grid size.</param>
+    /// <param name="cctKelvin">CCT of the test source, K, 1000–25 000 K.</param>
+    /// <param name="startNm">First wavelength of the grid, whole nm.</param>
+    /// <param name="stepNm">Grid step, whole nm (1 or 5).</param>
+    /// <param name="count">Number of wavelengths on the grid (≥ 1).</param>
     /// <returns>The reference.</returns>
     public static ReferenceIlluminant ForCie224(double cctKelvin, int startNm, int stepNm, int count)
     {

@@ -14,7 +14,7 @@ public static class SampleColors
     /// <param name="light">The light on a whole-nm grid.</param>
     /// <param name="set">Which samples: the 14 CIE 13.3 test colour samples or the 99 CIE 224 colour evaluation samples
     /// (the 1 nm or 5 nm table, as the light's step).</param>
-    /// <param name="observer">Observer.</param>
+    /// <param name="observer">The CIE 1931 2° or CIE 1964 10° observer for the sample sums.</param>
     /// <returns>The white (Y = 1) and the samples in table order (relative, white Y = 1).</returns>
     public static (Tristimulus White, IReadOnlyList<Tristimulus> Samples) Under(RegularSamples light, SampleSet set, Observer observer)
     {

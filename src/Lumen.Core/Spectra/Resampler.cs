@@ -14,7 +14,7 @@ namespace Lumen.Spectra;
 public static class Resampler
 {
     /// <summary>Brings <paramref name="spectrum"/> onto the grid the CIE sums use (see remarks of the type).</summary>
-    /// <param name="spectrum">The spectrum.</param>
+    /// <param name="spectrum">The measured spectrum, on any ascending grid.</param>
     /// <returns>The regular samples and the method used.</returns>
     public static RegularSamples ForCieSums(Spectrum spectrum)
     {
@@ -83,7 +83,7 @@ public static class Resampler
 
     /// <summary>Linear interpolation of any ascending grid onto the whole-nanometre grid inside its range.</summary>
     /// <param name="wavelengthsNm">Ascending wavelengths, nm.</param>
-    /// <param name="values">Values.</param>
+    /// <param name="values">Values on a regular grid, at least 6.</param>
     /// <returns>Samples at every whole nm from ceil(first) to floor(last).</returns>
     public static RegularSamples LinearToOneNm(ReadOnlySpan<double> wavelengthsNm, ReadOnlySpan<double> values)
     {

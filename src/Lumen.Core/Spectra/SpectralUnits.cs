@@ -4,12 +4,12 @@ namespace Lumen.Spectra;
 public static class SpectralUnits
 {
     /// <summary>True when the unit is absolute (radiometric), so that photometric quantities have a scale.</summary>
-    /// <param name="unit">The unit.</param>
+    /// <param name="unit">The unit of a spectrum's values.</param>
     /// <returns>True for every unit except <see cref="SpectralUnit.Relative"/>.</returns>
     public static bool IsAbsolute(this SpectralUnit unit) => unit != SpectralUnit.Relative;
 
     /// <summary>The short text form used in files and on the command line.</summary>
-    /// <param name="unit">The unit.</param>
+    /// <param name="unit">The unit of a spectrum's values.</param>
     /// <returns>For example <c>W/m2/nm</c>.</returns>
     public static string Symbol(this SpectralUnit unit) => unit switch
     {

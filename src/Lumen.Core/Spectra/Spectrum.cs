@@ -101,12 +101,12 @@ public sealed class Spectrum
     }
 
     /// <summary>A copy with another name.</summary>
-    /// <param name="name">The new name.</param>
+    /// <param name="name">The new name (any text, not null).</param>
     /// <returns>The renamed spectrum.</returns>
     public Spectrum WithName(string name) => new(_wavelengthsNm, _values, Unit, name, Origin);
 
     /// <summary>A copy with another unit (the values are unchanged).</summary>
-    /// <param name="unit">The new unit.</param>
+    /// <param name="unit">The new unit of the same values (no conversion is done).</param>
     /// <returns>The spectrum.</returns>
     public Spectrum WithUnit(SpectralUnit unit) => new(_wavelengthsNm, _values, unit, Name, Origin);
 

@@ -16,7 +16,7 @@ public readonly record struct CctResult(double CctKelvin, double Duv, CctMethod 
     public static CctResult Undefined(CctMethod method) => new(double.NaN, double.NaN, method, CctConditions.Undefined);
 
     /// <summary>Readable name of the method with its source.</summary>
-    /// <param name="method">The method.</param>
+    /// <param name="method">The CCT method whose result this would have been.</param>
     /// <returns>For example "nearest point on the exact Planckian locus (CIE 15), Newton refinement".</returns>
     public static string Describe(CctMethod method) => method switch
     {
