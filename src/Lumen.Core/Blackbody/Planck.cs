@@ -13,7 +13,7 @@ public static class Planck
     /// <exception cref="ArgumentOutOfRangeException">Non-positive wavelength or temperature.</exception>
     /// <remarks>docs/methods/planck.md §1 (CIE 15:2004 App. E form); uses expm1 for precision at small x.
     /// Check value: L(500 nm, 5500 K) = 2.047 270 19e13 W·sr⁻¹·m⁻³ with c1 = 3.741771e-16, c2 = 1.4388e-2.</remarks>
-    public static double SpectralRadiancePerMetre(double wavelengthMetres, double temperatureKelvin, PlanckConstants constants)
+    internal static double SpectralRadiancePerMetre(double wavelengthMetres, double temperatureKelvin, PlanckConstants constants)
     {
         if (!(wavelengthMetres > 0)) throw new ArgumentOutOfRangeException(nameof(wavelengthMetres), "Wavelength must be positive.");
         if (!(temperatureKelvin > 0)) throw new ArgumentOutOfRangeException(nameof(temperatureKelvin), "Temperature must be positive.");

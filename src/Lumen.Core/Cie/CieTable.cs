@@ -73,7 +73,7 @@ public sealed class CieTable
     /// This table interpolated to 1 nm by Sprague (CIE 167) over its own range; the table itself when already at 1 nm.
     /// </summary>
     /// <returns>A 1 nm table named <c>name@1nm</c>.</returns>
-    public CieTable SpragueToOneNm()
+    internal CieTable SpragueToOneNm()
     {
         if (StepNm == 1) return this;
         var dict = new Dictionary<string, double[]>(StringComparer.Ordinal);

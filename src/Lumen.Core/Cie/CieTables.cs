@@ -42,7 +42,7 @@ public static class CieTables
     /// <summary>Column names of the colour-matching functions of <paramref name="observer"/>.</summary>
     /// <param name="observer">The CIE 1931 2° or CIE 1964 10° standard observer.</param>
     /// <returns>(x̄, ȳ, z̄) column names.</returns>
-    public static (string X, string Y, string Z) CmfColumns(Observer observer) =>
+    internal static (string X, string Y, string Z) CmfColumns(Observer observer) =>
         observer == Observer.Cie1931TwoDegree ? ("x_bar", "y_bar", "z_bar") : ("x_bar_10", "y_bar_10", "z_bar_10");
 
     /// <summary>CIE S 026:2018 α-opic action spectra (S-cone, M-cone, L-cone, rhodopic, melanopic), 380–780 nm at 1 nm (data-cie/alpha_opic_action_spectra.csv).</summary>

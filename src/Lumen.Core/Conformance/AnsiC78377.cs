@@ -92,7 +92,7 @@ public static class AnsiC78377
     /// <param name="highKelvin">Upper CCT limit of the quadrangle (target + tolerance), K.</param>
     /// <param name="centreDuv">Duv of the centre line at a CCT (the flexible formula, or a constant).</param>
     /// <returns>The quadrangle.</returns>
-    public static Quadrangle BuildQuadrangle(double lowKelvin, double highKelvin, Func<double, double> centreDuv)
+    internal static Quadrangle BuildQuadrangle(double lowKelvin, double highKelvin, Func<double, double> centreDuv)
     {
         ArgumentNullException.ThrowIfNull(centreDuv);
         Chromaticity P(double t, double duv) { var c = CctSolver.ToChromaticity(t, duv); return Chromaticity.FromXy(c.SmallX, c.SmallY); }

@@ -10,4 +10,4 @@ namespace Lumen.Descriptors;
 /// <param name="IsComplementary">True for purple stimuli (the ray meets the purple line).</param>
 /// <param name="IntersectionX">x of the intersection point D.</param>
 /// <param name="IntersectionY">CIE 1931 y of the point D where the ray meets the spectrum locus or purple line.</param>
-public readonly record struct DominantWavelengthResult(double WavelengthNm, double ExcitationPurity, bool IsComplementary, double IntersectionX, double IntersectionY);
+internal readonly record struct DominantWavelengthResult(double WavelengthNm, double ExcitationPurity, bool IsComplementary, double IntersectionX, double IntersectionY);

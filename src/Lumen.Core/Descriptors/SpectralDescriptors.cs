@@ -76,7 +76,7 @@ public static class SpectralDescriptors
     /// <param name="xn">x of the achromatic (white) point, 0–1; 1/3 for the equal-energy point E.</param>
     /// <param name="yn">y of the achromatic (white) point, 0–1.</param>
     /// <returns>The result, or null when the sample coincides with the white point.</returns>
-    public static DominantWavelengthResult? Dominant(double x, double y, double xn, double yn)
+    internal static DominantWavelengthResult? Dominant(double x, double y, double xn, double yn)
     {
         double dx = x - xn, dy = y - yn;
         if (Math.Sqrt(dx * dx + dy * dy) < 1e-9) return null;

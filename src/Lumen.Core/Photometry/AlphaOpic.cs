@@ -26,7 +26,7 @@ public static class AlphaOpic
     /// <summary>The action-spectrum column of a kind in data-cie.</summary>
     /// <param name="kind">One of the five CIE S 026 α-opic quantities.</param>
     /// <returns>Column name.</returns>
-    public static string ColumnOf(AlphaOpicKind kind) => Columns[(int)kind];
+    internal static string ColumnOf(AlphaOpicKind kind) => Columns[(int)kind];
 
     /// <summary>Computes the five α-opic results.</summary>
     /// <param name="samples">Spectrum on its CIE grid.</param>

@@ -127,9 +127,9 @@ internal sealed class Ciecam02
         for (int i = 0; i < n; i++)
         {
             double j = 100 * ach[i];
-            double mColourfulness = tc[i] * Math.Sqrt(ach[i]) * _chromaFactor * _fl025;
+            double mColorfulness = tc[i] * Math.Sqrt(ach[i]) * _chromaFactor * _fl025;
             jPrime[i] = 1.7 * j / (1 + 0.007 * j);
-            tc[i] = 1 + 0.0228 * mColourfulness;
+            tc[i] = 1 + 0.0228 * mColorfulness;
         }
         System.Numerics.Tensors.TensorPrimitives.Log(tc, tc);
         for (int i = 0; i < n; i++)

@@ -26,7 +26,7 @@ public static class FidelityIndex
     /// <summary>Converts a colour difference to the 0–100 fidelity scale.</summary>
     /// <param name="deltaE">Mean CAM02-UCS colour difference.</param>
     /// <returns>10·ln(exp((100 − 6.73·ΔE)/10) + 1).</returns>
-    public static double ToScale(double deltaE) => 10 * Math.Log(Math.Exp((100 - ScalingFactor * deltaE) / 10) + 1);
+    internal static double ToScale(double deltaE) => 10 * Math.Log(Math.Exp((100 - ScalingFactor * deltaE) / 10) + 1);
 
     /// <summary>Computes Rf, Rg, Rf,i and the hue bins.</summary>
     /// <param name="test">Test spectrum on a whole-nm 1 nm or 5 nm grid.</param>
