@@ -74,7 +74,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
 
     private int Execute(ParseResult parse)
     {
-        if (!_inputs.TryResolve(parse, stderr, out var inputs)) return ExitCodes.UsageError;
+        if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(OutputOption))) return ExitCodes.UsageError;
         if (!TryParseMetrics(parse.GetValue(MetricsOption) ?? "all", out var metrics, out var badMetric))
         {
             stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity, photometry, nonvisual, spectral or all.");

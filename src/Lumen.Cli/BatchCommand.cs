@@ -34,7 +34,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     private int Execute(ParseResult parse)
     {
         if (!CommonOptions.TryLoadSpec(parse.GetValue(Spec)!, stderr, out var spec)) return ExitCodes.UsageError;
-        if (!_inputs.TryResolve(parse, stderr, out var inputs)) return ExitCodes.UsageError;
+        if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out), parse.GetValue(Summary))) return ExitCodes.UsageError;
         string? outPath = parse.GetValue(Out), summaryPath = parse.GetValue(Summary);
         foreach (var p in new[] { outPath, summaryPath })
             if (OutputTarget.ConflictWithInputs(p, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen: {conflict}."); return ExitCodes.UsageError; }

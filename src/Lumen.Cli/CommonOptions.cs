@@ -15,6 +15,45 @@ internal static class CommonOptions
         return o;
     }
 
+    /// <summary>
+    /// Parses a number the one way Lumen accepts on the command line, whatever the machine's locale: invariant culture,
+    /// '.' as the decimal point, an optional exponent, no thousands separators ("3000,5" is an error, not 30005), and
+    /// within the range of double precision ("1e400" is an error, not infinity).
+    /// </summary>
+    public static bool TryParseNumber(string text, out double value) =>
+        double.TryParse(text, System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out value)
+        && double.IsFinite(value);
+
+    private static double ParseNumber(System.CommandLine.Parsing.ArgumentResult r)
+    {
+        var token = r.Tokens.Count > 0 ? r.Tokens[^1].Value : "";
+        if (TryParseNumber(token, out double v)) return v;
+        string what = r.Parent is System.CommandLine.Parsing.OptionResult o ? o.Option.Name : r.Argument.Name;
+        r.AddError($"{what}: '{token}' is not a number; expected digits with '.' as the decimal point, e.g. 2856.5 or 1e-3 (no thousands separators).");
+        return default;
+    }
+
+    /// <summary>Makes a numeric option parse with <see cref="TryParseNumber"/>.</summary>
+    public static Option<double> Strict(this Option<double> option)
+    {
+        option.CustomParser = ParseNumber;
+        return option;
+    }
+
+    /// <summary>Makes an optional numeric option parse with <see cref="TryParseNumber"/>.</summary>
+    public static Option<double?> Strict(this Option<double?> option)
+    {
+        option.CustomParser = r => ParseNumber(r);
+        return option;
+    }
+
+    /// <summary>Makes a numeric argument parse with <see cref="TryParseNumber"/>.</summary>
+    public static Argument<double> Strict(this Argument<double> argument)
+    {
+        argument.CustomParser = ParseNumber;
+        return argument;
+    }
+
     /// <summary>The output format named by a <c>--format</c> value.</summary>
     public static OutputFormat ToOutputFormat(string? text) => text switch { "json" => OutputFormat.Json, "csv" => OutputFormat.Csv, _ => OutputFormat.Text };
 

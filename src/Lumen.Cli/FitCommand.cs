@@ -24,7 +24,7 @@ internal sealed class FitCommand(TextReader stdin, TextWriter stdout, TextWriter
 
     private int Execute(ParseResult parse)
     {
-        if (!_inputs.TryResolve(parse, stderr, out var inputs)) return ExitCodes.UsageError;
+        if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out))) return ExitCodes.UsageError;
         var outPath = parse.GetValue(Out);
         if (OutputTarget.ConflictWithInputs(outPath, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen: {conflict}."); return ExitCodes.UsageError; }
         bool slope = parse.GetValue(Slope);

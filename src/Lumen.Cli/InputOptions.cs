@@ -40,8 +40,9 @@ internal sealed class InputOptions
     /// <summary>The input paths as given (before folder expansion).</summary>
     public IReadOnlyList<string> Given(ParseResult parse) => parse.GetValue(Inputs) ?? [];
 
-    /// <summary>Checks the options; false (with the message written) on a usage error.</summary>
-    public bool TryResolve(ParseResult parse, TextWriter stderr, out InputSelection selection)
+    /// <summary>Checks the options and expands the inputs, leaving this run's outputs out of folder scans; false (with
+    /// the message written) on a usage error.</summary>
+    public bool TryResolve(ParseResult parse, TextWriter stderr, out InputSelection selection, params string?[] outputs)
     {
         selection = default!;
         SpectralUnit? unit = null;
@@ -55,18 +56,25 @@ internal sealed class InputOptions
             unit = u;
         }
         TableLayout? layout = parse.GetValue(Layout) switch { "rows" => TableLayout.Rows, "columns" => TableLayout.Columns, _ => null };
-        selection = new InputSelection(SpectrumFiles.Expand(Given(parse)), unit, layout);
+        var exclude = outputs.Where(o => o is not null && o != "-").Select(o => o!).ToArray();
+        selection = new InputSelection(SpectrumFiles.Expand(Given(parse), exclude), unit, layout);
         return true;
     }
 }
 
 /// <summary>Resolved inputs: the files after folder expansion, the default unit and the layout.</summary>
-internal sealed record InputSelection(IReadOnlyList<string> Files, SpectralUnit? Unit, TableLayout? Layout)
+internal sealed record InputSelection(IReadOnlyList<InputFile> Inputs, SpectralUnit? Unit, TableLayout? Layout)
 {
+    /// <summary>The paths of the inputs.</summary>
+    public IReadOnlyList<string> Files => Inputs.Select(f => f.Path).ToArray();
+
     /// <summary>Every record of every file, in order (the row layout streams).</summary>
     public IEnumerable<InputRecord> Records(TextReader stdin, ReadProgress? progress = null)
     {
-        foreach (var file in Files)
-            foreach (var r in SpectrumFiles.Read(file, Unit, stdin, Layout, progress)) yield return r;
+        foreach (var file in Inputs)
+        {
+            if (file.Problem is { } problem) { yield return ErrorRecord.ForFile(file.Path, problem); continue; }
+            foreach (var r in SpectrumFiles.Read(file.Path, Unit, stdin, Layout, progress)) yield return r;
+        }
     }
 }

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.Globalization;
 
 namespace Lumen.Cli;
 
@@ -15,6 +16,12 @@ public static class LumenApp
     public static int Run(string[] args, TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal = false)
     {
         ArgumentNullException.ThrowIfNull(stderr);
+        // Every number Lumen parses or prints uses the invariant culture, whatever the machine's locale — on this
+        // thread and on the worker threads of a batch.
+        CultureInfo.DefaultThreadCurrentCulture = CultureInfo.InvariantCulture;
+        CultureInfo.DefaultThreadCurrentUICulture = CultureInfo.InvariantCulture;
+        CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
+        CultureInfo.CurrentUICulture = CultureInfo.InvariantCulture;
         var root = new RootCommand("lumen — colorimetry, CCT/Duv and colour quality of measured light-source spectra.\n" + ExitCodes.Legend);
         root.Subcommands.Add(new AnalyzeCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new BlackbodyCommand(stdout, stderr).Build());

@@ -35,7 +35,19 @@ internal static class OutputTarget
     /// <returns>Null on success, else the reason it could not be written.</returns>
     public static string? WriteText(string? path, TextWriter stdout, Action<TextWriter> write)
     {
-        if (IsStdout(path)) { write(stdout); stdout.Flush(); return null; }
+        if (IsStdout(path))
+        {
+            try
+            {
+                write(stdout);
+                stdout.Flush();
+                return null;
+            }
+            catch (IOException ex)
+            {
+                return $"cannot write standard output: {ex.Message}";
+            }
+        }
         return WriteFile(path!, stream =>
         {
             using var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);

@@ -46,7 +46,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         int dw = 1200, dh = kind == "swatch" ? 520 : 900;
         if (!TryParseSize(parse.GetValue(Size), dw, dh, out int w, out int h)) return Fail("--size must be WIDTHxHEIGHT in pixels, 200x150 to 8000x8000 (e.g. 1200x900).");
         if (!CommonOptions.TryLoadSpec(parse.GetValue(Spec), stderr, out var spec)) return ExitCodes.UsageError;
-        if (!_inputs.TryResolve(parse, stderr, out var inputs)) return ExitCodes.UsageError;
+        if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out))) return ExitCodes.UsageError;
         if (OutputTarget.ConflictWithInputs(outPath, inputs.Files) is { } conflict) return Fail(conflict + ".");
         var items = new List<RecordOutcome>();
         foreach (var r in inputs.Records(stdin))

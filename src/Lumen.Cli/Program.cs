@@ -1,5 +1,3 @@
-using System.Globalization;
-
 namespace Lumen.Cli;
 
 /// <summary>Entry point.</summary>
@@ -10,11 +8,6 @@ public static class Program
     /// <returns>Exit code (see <see cref="ExitCodes"/>).</returns>
     public static int Main(string[] args)
     {
-        // Every number Lumen parses or prints uses the invariant culture, whatever the machine's locale.
-        CultureInfo.DefaultThreadCurrentCulture = CultureInfo.InvariantCulture;
-        CultureInfo.DefaultThreadCurrentUICulture = CultureInfo.InvariantCulture;
-        CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
-        CultureInfo.CurrentUICulture = CultureInfo.InvariantCulture;
         var stdout = new StreamWriter(Console.OpenStandardOutput()) { AutoFlush = false };
         try
         {

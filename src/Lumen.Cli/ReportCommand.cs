@@ -24,7 +24,7 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
     private int Execute(ParseResult parse)
     {
         if (!CommonOptions.TryLoadSpec(parse.GetValue(Spec), stderr, out var spec)) return ExitCodes.UsageError;
-        if (!_inputs.TryResolve(parse, stderr, out var inputs)) return ExitCodes.UsageError;
+        if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out))) return ExitCodes.UsageError;
         string outPath = parse.GetValue(Out)!;
         if (OutputTarget.ConflictWithInputs(outPath, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen report: {conflict}."); return ExitCodes.UsageError; }
         var records = inputs.Records(stdin).ToList();

@@ -1,3 +1,4 @@
+using System.Text;
 using Lumen.Analysis;
 using Lumen.Spectra;
 
@@ -6,7 +7,11 @@ namespace Lumen.Formats;
 /// <summary>Reads spectrum files in either layout: the one entry point for every command.</summary>
 public static class SpectrumFiles
 {
-    /// <summary>All records of a file (or standard input for <c>-</c>): row layout streamed, column layout per file.</summary>
+    /// <summary>
+    /// All records of a file (or standard input for <c>-</c>), streamed. The input is opened and read once: the layout is
+    /// detected from the first data line, which is then replayed to the reader, so pipes, FIFOs and process substitution
+    /// work. A file that cannot be opened, a folder, or a line too long to be a row of spectra becomes an error record.
+    /// </summary>
     /// <param name="path">File path or <c>-</c>.</param>
     /// <param name="unit">Unit when the file declares none.</param>
     /// <param name="stdin">Standard input for <c>-</c>.</param>
@@ -16,57 +21,144 @@ public static class SpectrumFiles
     public static IEnumerable<InputRecord> Read(string path, SpectralUnit? unit = null, TextReader? stdin = null, TableLayout? layout = null, ReadProgress? progress = null)
     {
         ArgumentNullException.ThrowIfNull(path);
-        if (path == "-")
+        if (path == "-") return ReadOnce(() => (stdin ?? Console.In, null), "-", "stdin", unit, layout, progress);
+        if (Directory.Exists(path)) return [ErrorRecord.ForFile(path, "is a folder; give the folder itself as an input to read the spectrum files in it")];
+        if (!File.Exists(path)) return [ErrorRecord.ForFile(path, "file not found")];
+        return ReadOnce(() =>
         {
-            // Standard input cannot be read twice: buffer it (interactive use, small).
-            var text = (stdin ?? Console.In).ReadToEnd();
-            var kind = layout ?? Detect(new StringReader(text));
-            return kind == TableLayout.Rows
-                ? RowSpectrumReader.Read(new StringReader(text), "-", "stdin", unit)
-                : DelimitedSpectrumReader.Read(new StringReader(text), "-", "stdin", unit);
+            var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
+            return (new StreamReader(stream, Encoding.UTF8, detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16), stream);
+        }, path, Path.GetFileNameWithoutExtension(path), unit, layout, progress);
+    }
+
+    private static IEnumerable<InputRecord> ReadOnce(Func<(TextReader Reader, Stream? Stream)> open, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
+    {
+        TextReader text;
+        Stream? stream;
+        try { (text, stream) = open(); }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            return [ErrorRecord.ForFile(source, $"cannot read: {ex.Message}")];
         }
-        if (!File.Exists(path)) return [new ErrorRecord(path, 0, Path.GetFileName(path), new ReadDiagnostic(path, 0, 0, "file not found"))];
-        TableLayout k;
-        using (var probe = new StreamReader(path, detectEncodingFromByteOrderMarks: true)) k = layout ?? Detect(probe);
-        return k == TableLayout.Columns ? Counted(DelimitedSpectrumReader.ReadFile(path, unit), new FileInfo(path).Length, progress) : StreamRows(path, unit, progress);
+        return Stream(text, stream, source, stem, unit, layout, progress);
     }
 
-    private static IEnumerable<InputRecord> Counted(IReadOnlyList<InputRecord> records, long bytes, ReadProgress? progress)
+    private static IEnumerable<InputRecord> Stream(TextReader text, Stream? stream, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
     {
-        progress?.Add(bytes);
-        return records;
-    }
-
-    private static IEnumerable<InputRecord> StreamRows(string path, SpectralUnit? unit, ReadProgress? progress)
-    {
-        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
-        using var reader = new StreamReader(stream, System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16);
+        using var lines = new LineReader(text);
         long reported = 0;
-        foreach (var r in RowSpectrumReader.Read(reader, path, Path.GetFileNameWithoutExtension(path), unit))
+        IEnumerator<InputRecord>? records = null;
+        try
         {
-            long position = stream.Position;
-            if (position != reported) { progress?.Add(position - reported); reported = position; }
-            yield return r;
+            while (true)
+            {
+                InputRecord? next = null, failure = null;
+                try
+                {
+                    if (records is null)
+                    {
+                        var kind = layout ?? (lines.PeekFirstDataLine() is { } first ? RowSpectrumReader.DetectLayout(first) : TableLayout.Columns);
+                        records = (kind == TableLayout.Rows
+                            ? RowSpectrumReader.Read(lines, source, stem, unit)
+                            : DelimitedSpectrumReader.Read(lines, source, stem, unit)).GetEnumerator();
+                    }
+                    if (records.MoveNext()) next = records.Current;
+                }
+                catch (LineTooLongException ex)
+                {
+                    failure = new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, ex.Line, 1, ex.Message)) { Line = ex.Line };
+                }
+                catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or DecoderFallbackException)
+                {
+                    failure = new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, lines.LinesRead + 1, 1, $"reading stopped: {ex.Message}"));
+                }
+                if (stream is not null && progress is not null)
+                {
+                    long position = stream.CanSeek ? stream.Position : reported;
+                    if (position != reported) { progress.Add(position - reported); reported = position; }
+                }
+                if (failure is not null) { yield return failure; yield break; }
+                if (next is null) yield break;
+                yield return next;
+            }
         }
-        progress?.Add(stream.Length - reported);
+        finally
+        {
+            records?.Dispose();
+            if (stream is not null && progress is not null && stream.CanSeek)
+            {
+                try { progress.Add(stream.Length - reported); }
+                catch (IOException) { /* the count is only for the progress line */ }
+            }
+            stream?.Dispose();
+        }
     }
 
-    /// <summary>Expands inputs: a folder becomes its .csv, .tsv and .txt files (recursively, in ordinal order); a file stays.</summary>
-    /// <param name="inputs">Files or folders.</param>
-    /// <returns>Files.</returns>
-    public static IReadOnlyList<string> Expand(IEnumerable<string> inputs)
+    /// <summary>
+    /// Expands inputs: a file (or <c>-</c>) stays; a folder becomes its .csv, .tsv and .txt files, recursively, in ordinal
+    /// order. Folders reached through symbolic links are followed once (by their real path), so a link loop cannot hang
+    /// the scan or read a file twice; a folder that cannot be listed, or that holds no spectrum file, becomes an entry with
+    /// its problem (read as an error record, so nothing is silently lost). Files in <paramref name="exclude"/> (the run's
+    /// own outputs) and Lumen's temporary and partial files are skipped in folder scans.
+    /// </summary>
+    /// <param name="inputs">Files, folders or <c>-</c>, as the user gave them.</param>
+    /// <param name="exclude">Full paths to leave out of folder scans (this run's outputs); may be null.</param>
+    /// <returns>The files in order, each with its problem or none.</returns>
+    public static IReadOnlyList<InputFile> Expand(IEnumerable<string> inputs, IReadOnlyCollection<string>? exclude = null)
     {
         ArgumentNullException.ThrowIfNull(inputs);
-        var files = new List<string>();
+        var skip = new HashSet<string>((exclude ?? []).Select(Path.GetFullPath), StringComparer.Ordinal);
+        var files = new List<InputFile>();
+        var seenFolders = new HashSet<string>(StringComparer.Ordinal);
         foreach (var input in inputs)
         {
-            if (Directory.Exists(input))
-                files.AddRange(Directory.EnumerateFiles(input, "*", SearchOption.AllDirectories)
-                    .Where(f => f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".tsv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".txt", StringComparison.OrdinalIgnoreCase))
-                    .OrderBy(f => f, StringComparer.Ordinal));
-            else files.Add(input);
+            if (input != "-" && Directory.Exists(input))
+            {
+                int before = files.Count;
+                Scan(input, files, seenFolders, skip);
+                if (files.Count == before) files.Add(new InputFile(input, "folder holds no .csv, .tsv or .txt file"));
+            }
+            else files.Add(new InputFile(input));
         }
         return files;
+    }
+
+    private static bool IsSpectrumFile(string f) =>
+        f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".tsv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".txt", StringComparison.OrdinalIgnoreCase);
+
+    private static void Scan(string folder, List<InputFile> files, HashSet<string> seenFolders, HashSet<string> skip)
+    {
+        string real;
+        try
+        {
+            var info = new DirectoryInfo(folder);
+            real = info.LinkTarget is null ? info.FullName : (info.ResolveLinkTarget(returnFinalTarget: true)?.FullName ?? info.FullName);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            files.Add(new InputFile(folder, $"cannot read folder: {ex.Message}"));
+            return;
+        }
+        if (!seenFolders.Add(real)) return; // reached again through a link: already scanned
+        string[] entries, subfolders;
+        try
+        {
+            entries = Directory.GetFiles(folder);
+            subfolders = Directory.GetDirectories(folder);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            files.Add(new InputFile(folder, $"cannot read folder: {ex.Message}"));
+            return;
+        }
+        var here = new List<(string Path, bool Folder)>();
+        here.AddRange(entries.Where(f => IsSpectrumFile(f) && !skip.Contains(Path.GetFullPath(f))).Select(f => (f, false)));
+        here.AddRange(subfolders.Select(f => (f, true)));
+        foreach (var (path, isFolder) in here.OrderBy(e => e.Path, StringComparer.Ordinal))
+        {
+            if (isFolder) Scan(path, files, seenFolders, skip);
+            else files.Add(new InputFile(path));
+        }
     }
 
     /// <summary>Detects the layout from the first non-comment row of a text.</summary>

@@ -27,9 +27,15 @@ public static class Assessor
         ArgumentNullException.ThrowIfNull(spectrum);
         options ??= AssessmentOptions.Default;
         var warnings = new List<string>();
-        var samples = Resampler.ForCieSums(spectrum);
         if (CoverageWarning(spectrum) is { } coverage) warnings.Add(coverage);
         if (NegativeValueWarning(spectrum) is { } negative) warnings.Add(negative);
+        // Every relative result is independent of scale, so values far from 1 (subnormal or near the top of the double
+        // range) are first scaled by a power of two, which is exact; absolute quantities are scaled back at the end and
+        // given only when finite.
+        int exponent = ScaleExponentOf(spectrum);
+        double scale = Math.ScaleB(1.0, exponent); // may itself be subnormal or large; only products with it are used
+        var work = exponent == 0 ? spectrum : spectrum.ScaleByPowerOfTwo(-exponent);
+        var samples = Resampler.ForCieSums(work);
 
         var raw2 = Colorimeter.RawSums(samples, Observer.Cie1931TwoDegree);
         var rawObs = options.Observer == Observer.Cie1931TwoDegree ? raw2 : Colorimeter.RawSums(samples, options.Observer);
@@ -61,9 +67,9 @@ public static class Assessor
                 warnings.Add("Colour rendering indices compare the source with a reference at its CCT; with |Duv| > 0.05 that comparison is not meaningful.");
         }
 
-        var photometry = options.Metrics.HasFlag(MetricGroups.Photometry) ? Photometer.Compute(samples, spectrum.Unit) : null;
-        var nonVisual = options.Metrics.HasFlag(MetricGroups.NonVisual) ? AlphaOpic.Compute(samples, spectrum.Unit) : null;
-        var spectral = options.Metrics.HasFlag(MetricGroups.Spectral) ? SpectralDescriptors.Compute(spectrum, chroma2) : null;
+        var photometry = options.Metrics.HasFlag(MetricGroups.Photometry) ? Rescaled(Photometer.Compute(samples, spectrum.Unit), scale, warnings) : null;
+        var nonVisual = options.Metrics.HasFlag(MetricGroups.NonVisual) ? Rescaled(AlphaOpic.Compute(samples, spectrum.Unit), scale, warnings) : null;
+        var spectral = options.Metrics.HasFlag(MetricGroups.Spectral) ? SpectralDescriptors.Compute(work, chroma2) : null;
         if (nonVisual is not null && (spectrum.FirstNm > ExpectedFirstNm || spectrum.LastNm < ExpectedLastNm))
             warnings.Add("CIE S 026 quantities need 380–780 nm; the missing part was taken as zero.");
 
@@ -84,11 +90,61 @@ public static class Assessor
             ["CIE 015:2018 (colorimetry)", "ISO/CIE 11664-1:2019 (observers)", "ANSI C78.377 (Duv sign)", "CIE 13.3-1995 (Ra, Ri)", "CIE 224:2017 (Rf)", "ANSI/IES TM-30-20 (Rg, hue bins)", "CIE 018:2019 (photometry)", "CIE S 026:2018 (α-opic)"],
             PlanckConstants.For(cctOpt.C2).C2,
             spectrum.FirstNm, spectrum.LastNm, samples.StartNm, samples.EndNm, samples.StepNm, samples.Method, spectrum.NegativeSampleCount);
-        Tristimulus? absolute = spectrum.Unit.IsAbsolute()
-            ? new Tristimulus(Colorimeter.KmLumensPerWatt * rawObs.X, Colorimeter.KmLumensPerWatt * rawObs.Y, Colorimeter.KmLumensPerWatt * rawObs.Z)
-            : null;
+        Tristimulus? absolute = null;
+        if (spectrum.Unit.IsAbsolute())
+        {
+            double k = Colorimeter.KmLumensPerWatt * scale;
+            var t = new Tristimulus(k * rawObs.X, k * rawObs.Y, k * rawObs.Z);
+            if (double.IsFinite(t.X) && double.IsFinite(t.Y) && double.IsFinite(t.Z)) absolute = t;
+            else if (!warnings.Contains(OverflowWarning)) warnings.Add(OverflowWarning);
+        }
         return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, absolute, chroma, chroma2, cct, cri, fidelity,
             photometry, nonVisual, spectral, warnings, provenance);
+    }
+
+    private const string OverflowWarning = "Absolute quantities exceed the range of double precision for these values: not given (relative results are unaffected).";
+
+    /// <summary>
+    /// The power of two by which the spectrum is divided before computing: 1 for values of ordinary size
+    /// (peak |value| within 10⁻¹⁸…10¹⁸), else the power of two nearest the peak, so that subnormal values or values near the
+    /// top of the double range cannot underflow or overflow in the sums, the adaptation transforms or the colour model.
+    /// </summary>
+    /// <param name="spectrum">The spectrum.</param>
+    /// <returns>The exponent e of the scale 2^e (0 for ordinary values and for a black spectrum).</returns>
+    internal static int ScaleExponentOf(Spectrum spectrum)
+    {
+        double max = 0;
+        foreach (var v in spectrum.Values) max = Math.Max(max, Math.Abs(v));
+        if (max == 0 || (max >= 1e-18 && max <= 1e18)) return 0;
+        return Math.ILogB(max);
+    }
+
+    private static PhotometricResult Rescaled(PhotometricResult p, double scale, List<string> warnings)
+    {
+        if (scale == 1 || p.Quantity is null) return p;
+        double? S(double? v) => v is { } x ? x * scale : null;
+        var r = p with { Photometric = S(p.Photometric), Scotopic = S(p.Scotopic), Radiometric = S(p.Radiometric) };
+        if (r.Photometric is { } a && double.IsFinite(a) && r.Scotopic is { } b && double.IsFinite(b) && r.Radiometric is { } c && double.IsFinite(c)) return r;
+        if (!warnings.Contains(OverflowWarning)) warnings.Add(OverflowWarning);
+        return r with { Photometric = null, Scotopic = null, Radiometric = null };
+    }
+
+    private static IReadOnlyList<AlphaOpicResult> Rescaled(IReadOnlyList<AlphaOpicResult> list, double scale, List<string> warnings)
+    {
+        if (scale == 1) return list;
+        var result = new AlphaOpicResult[list.Count];
+        for (int i = 0; i < list.Count; i++)
+        {
+            var a = list[i];
+            double? irr = a.Irradiance * scale, edi = a.Edi * scale;
+            if ((irr is { } x && !double.IsFinite(x)) || (edi is { } y && !double.IsFinite(y)))
+            {
+                if (!warnings.Contains(OverflowWarning)) warnings.Add(OverflowWarning);
+                irr = null; edi = null;
+            }
+            result[i] = a with { Irradiance = irr, Edi = edi };
+        }
+        return result;
     }
 
     /// <summary>Fraction of the peak below which negative samples are reported as a warning (common practice).</summary>

@@ -27,8 +27,17 @@ public sealed record RecordOutcome(InputRecord Record, Assessment? Assessment, V
         switch (record)
         {
             case SpectrumRecord s:
-                var a = Assessor.Assess(s.Spectrum, options);
-                return new RecordOutcome(record, a, spec?.Evaluate(a), null);
+                try
+                {
+                    var a = Assessor.Assess(s.Spectrum, options);
+                    return new RecordOutcome(record, a, spec?.Evaluate(a), null);
+                }
+                catch (Exception ex) when (ex is not OutOfMemoryException and not OperationCanceledException)
+                {
+                    // Per-record isolation: a computation that fails on one spectrum becomes that record's error row.
+                    return new RecordOutcome(record, null, null, new ReadDiagnostic(record.Source, record.Line, record.Column,
+                        $"could not compute this spectrum ({ex.GetType().Name}: {ex.Message}); please report it with the input"));
+                }
             case ErrorRecord e:
                 return new RecordOutcome(record, null, null, e.Error);
             default:

@@ -16,7 +16,7 @@ public sealed class Spectrum
     private readonly double[] _values;
 
     /// <summary>Builds a spectrum, validating its samples.</summary>
-    /// <param name="wavelengthsNm">Wavelengths in nm, strictly ascending, finite, positive.</param>
+    /// <param name="wavelengthsNm">Wavelengths in nm, strictly ascending, within 100–100 000 nm, at least 0.01 nm apart.</param>
     /// <param name="values">One finite value per wavelength, in <paramref name="unit"/>.</param>
     /// <param name="unit">The unit of the values.</param>
     /// <param name="name">A display name.</param>
@@ -32,6 +32,8 @@ public sealed class Spectrum
             throw new InvalidSpectrumException($"{origin}: {wavelengthsNm.Length} wavelengths but {values.Length} values.");
         if (wavelengthsNm.Length < 3)
             throw new InvalidSpectrumException($"{origin}: a spectrum needs at least 3 samples, found {wavelengthsNm.Length}.");
+        if (wavelengthsNm.Length > MaxSamples)
+            throw new InvalidSpectrumException($"{origin}: {wavelengthsNm.Length:N0} samples is more than the {MaxSamples:N0} a spectrum may have; is this one spectrum?");
         for (int i = 0; i < wavelengthsNm.Length; i++)
         {
             double w = wavelengthsNm[i];
@@ -40,6 +42,10 @@ public sealed class Spectrum
             if (i > 0 && w <= wavelengthsNm[i - 1])
                 throw new InvalidSpectrumException(
                     $"{origin}: wavelength {w} nm (#{i + 1}) does not follow {wavelengthsNm[i - 1]} nm; expected strictly ascending wavelengths without duplicates.", i);
+            if (w < MinWavelengthNm || w > MaxWavelengthNm)
+                throw new InvalidSpectrumException($"{origin}: wavelength {w:G6} (#{i + 1}) is outside {MinWavelengthNm:0}–{MaxWavelengthNm:0} nm; {UnitHint(wavelengthsNm)}", i);
+            if (i > 0 && w - wavelengthsNm[i - 1] < MinStepNm)
+                throw new InvalidSpectrumException($"{origin}: wavelengths {wavelengthsNm[i - 1]:G9} and {w:G9} nm are closer than {MinStepNm} nm; {UnitHint(wavelengthsNm)}", i);
             double v = values[i];
             if (!double.IsFinite(v))
                 throw new InvalidSpectrumException($"{origin}: the value at {w} nm is {v}; expected a finite number.", i);
@@ -47,6 +53,28 @@ public sealed class Spectrum
         }
         _wavelengthsNm = wavelengthsNm.ToArray();
         _values = values.ToArray();
+    }
+
+    /// <summary>Shortest wavelength a spectrum may have, nm (a plausibility gate: far UV).</summary>
+    public const double MinWavelengthNm = 100;
+
+    /// <summary>Longest wavelength a spectrum may have, nm (a plausibility gate: far infrared, 100 µm).</summary>
+    public const double MaxWavelengthNm = 100_000;
+
+    /// <summary>Smallest step between two wavelengths, nm (finer than any spectroradiometer).</summary>
+    public const double MinStepNm = 0.01;
+
+    /// <summary>Most samples a spectrum may have (far more than any instrument writes).</summary>
+    public const int MaxSamples = 1_000_000;
+
+    /// <summary>A hint at the unit a wavelength column that fails the plausibility gates was probably written in.</summary>
+    private static string UnitHint(ReadOnlySpan<double> w)
+    {
+        double first = w[0], last = w[^1];
+        if (last <= 1e-5) return "the wavelengths look like metres: multiply by 10⁹ to get nm.";
+        if (last <= 100 && first >= 0.1) return "the wavelengths look like micrometres (µm): multiply by 1000 to get nm.";
+        if (first >= 1000 && last <= 1e6) return "if the wavelengths are in ångström (Å), divide by 10 to get nm.";
+        return "expected wavelengths in nm (for example 380–780).";
     }
 
     /// <summary>Display name (from the file header, or <c>stem#k</c>).</summary>
@@ -97,6 +125,17 @@ public sealed class Spectrum
     {
         var v = new double[_values.Length];
         for (int i = 0; i < v.Length; i++) v[i] = _values[i] * factor;
+        return new Spectrum(_wavelengthsNm, v, Unit, Name, Origin);
+    }
+
+    /// <summary>A copy with every value multiplied by 2^<paramref name="exponent"/> — exact, and safe for subnormal values
+    /// (the factor itself is never formed).</summary>
+    /// <param name="exponent">The power of two.</param>
+    /// <returns>The scaled spectrum.</returns>
+    internal Spectrum ScaleByPowerOfTwo(int exponent)
+    {
+        var v = new double[_values.Length];
+        for (int i = 0; i < v.Length; i++) v[i] = Math.ScaleB(_values[i], exponent);
         return new Spectrum(_wavelengthsNm, v, Unit, Name, Origin);
     }
 
