@@ -9,7 +9,8 @@ namespace Lumen.Formats;
 /// flat: one row is held at a time.
 /// </summary>
 /// <remarks>Same conventions as <see cref="DelimitedSpectrumReader"/> (delimiters, comments, decimal comma,
-/// <c># unit:</c> directive). Every data row becomes exactly one record: a spectrum, or an error naming the line
+/// <c># unit:</c> directive), except that <c>#</c> lines are comments only before the header: after it every non-blank
+/// line is a unit, so IDs may start with <c>#</c>. A header cell that breaks the wavelength grid is an error at its column. Every data row becomes exactly one record: a spectrum, or an error naming the line
 /// and column. The record's name is its first metadata cell (the ID) or <c>stem:line</c>.</remarks>
 public static class RowSpectrumReader
 {
@@ -18,13 +19,51 @@ public static class RowSpectrumReader
 
     /// <summary>Detects the layout from a file's first non-comment row.</summary>
     /// <param name="firstRow">The row.</param>
-    /// <returns>Rows when the row ends in at least 10 strictly ascending numbers between 100 and 5000 nm; otherwise columns.</returns>
+    /// <returns>
+    /// Rows when the row ends in at least 10 strictly ascending numbers between 100 and 5000 nm that form a plausible
+    /// wavelength grid (reaching into 380–780 nm, steps within a factor of 4 of the median step); otherwise columns — so a
+    /// column file whose header names its spectra by serial numbers stays a column file.
+    /// </returns>
     public static TableLayout DetectLayout(string firstRow)
     {
         ArgumentNullException.ThrowIfNull(firstRow);
         char d = DelimitedSpectrumReader.DetectDelimiter(firstRow);
         var cells = Cells(firstRow, d);
-        return WavelengthStart(cells, d) >= 0 ? TableLayout.Rows : TableLayout.Columns;
+        int k = WavelengthStart(cells, d);
+        return k >= 0 && PlausibleGrid(cells, k, d) ? TableLayout.Rows : TableLayout.Columns;
+    }
+
+    private static bool PlausibleGrid(string[] cells, int start, char d)
+    {
+        var w = new double[cells.Length - start];
+        for (int i = 0; i < w.Length; i++) DelimitedSpectrumReader.TryParseNumber(cells[start + i], d, out w[i]);
+        if (w[0] > 780 || w[^1] < 380) return false;
+        var steps = new double[w.Length - 1];
+        for (int i = 0; i < steps.Length; i++) steps[i] = w[i + 1] - w[i];
+        var sorted = steps.Order().ToArray();
+        double median = sorted[sorted.Length / 2];
+        return sorted[^1] <= 4 * median;
+    }
+
+    /// <summary>
+    /// A problem with a row-layout header: a number among the ID/metadata cells means a cell broke the wavelength run
+    /// (a typo such as <c>5OO</c>, or a duplicate or descending wavelength), which would otherwise silently turn part of
+    /// the grid into ID columns.
+    /// </summary>
+    private static (int Column, string Message)? HeaderProblem(string[] header, int start, char d)
+    {
+        for (int i = 0; i < start; i++)
+        {
+            if (DelimitedSpectrumReader.TryParseNumber(header[i], d, out double w) && w > 100 && w < 5000)
+            {
+                string cell = header[start - 1];
+                string why = DelimitedSpectrumReader.TryParseNumber(cell, d, out double b)
+                    ? $"{b:G9} nm does not ascend to {header[start]} nm (duplicate or out of order)"
+                    : $"'{(cell.Length > 24 ? cell[..21] + "..." : cell)}' is not a wavelength";
+                return (start, $"header cell {start} breaks the wavelength grid: {why}; the wavelengths before it would be taken as ID columns. Fix the header (or give --layout columns if this is a column file)");
+            }
+        }
+        return null;
     }
 
     /// <summary>Index of the first wavelength cell of a row-layout header, or -1.</summary>
@@ -69,7 +108,7 @@ public static class RowSpectrumReader
             if (lineNo == 1 && line.Length > 0 && line[0] == '\uFEFF') line = line[1..];
             var t = line.Trim();
             if (t.Length == 0) continue;
-            if (t[0] == '#')
+            if (t[0] == '#' && wavelengths is null) // comments and directives only before the header: after it, '#' starts an ID
             {
                 if (DelimitedSpectrumReader.UnitDirective(t, out var u, out var bad))
                 {
@@ -91,6 +130,11 @@ public static class RowSpectrumReader
                 {
                     yield return new ErrorRecord(source, 0, Path.GetFileName(source),
                         new ReadDiagnostic(source, lineNo, 1, $"first row is not a wavelength header; expected optional ID columns then at least {MinimumWavelengths} ascending wavelengths in nm"));
+                    yield break;
+                }
+                if (HeaderProblem(header, idColumns, d) is var (col, message))
+                {
+                    yield return new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, lineNo, col, message)) { Line = lineNo };
                     yield break;
                 }
                 expectedCells = header.Length;

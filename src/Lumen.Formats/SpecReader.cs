@@ -13,6 +13,9 @@ public static class SpecReader
 {
     private static readonly HashSet<string> TopLevel = new(StringComparer.Ordinal) { "name", "description", "target", "chromaticity", "limits" };
 
+    /// <summary>Largest specification file accepted, bytes.</summary>
+    public const int MaxBytes = 1024 * 1024;
+
     /// <summary>Reads a spec file.</summary>
     /// <param name="path">Path.</param>
     /// <param name="errors">Diagnostics (empty on success).</param>
@@ -20,8 +23,23 @@ public static class SpecReader
     public static ToleranceSpec? ReadFile(string path, out IReadOnlyList<ReadDiagnostic> errors)
     {
         ArgumentNullException.ThrowIfNull(path);
+        if (Directory.Exists(path)) { errors = [new ReadDiagnostic(path, 0, 0, "is a folder; expected a specification file (JSON)")]; return null; }
         if (!File.Exists(path)) { errors = [new ReadDiagnostic(path, 0, 0, "spec file not found")]; return null; }
-        return Read(File.ReadAllBytes(path), path, out errors);
+        byte[] bytes;
+        try
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+            if (stream.CanSeek && stream.Length > MaxBytes) { errors = [new ReadDiagnostic(path, 0, 0, $"the specification is larger than {MaxBytes / 1024} KiB; is this the right file?")]; return null; }
+            using var ms = new MemoryStream();
+            stream.CopyTo(ms);
+            bytes = ms.ToArray();
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            errors = [new ReadDiagnostic(path, 0, 0, $"cannot read the specification: {ex.Message}")];
+            return null;
+        }
+        return Read(bytes, path, out errors);
     }
 
     /// <summary>Reads a spec from UTF-8 bytes.</summary>
@@ -36,11 +54,22 @@ public static class SpecReader
         errors = list;
         int bom = utf8.Length >= 3 && utf8[0] == 0xEF && utf8[1] == 0xBB && utf8[2] == 0xBF ? 3 : 0;
         var bytes = utf8.AsMemory(bom);
+        if (!System.Text.Unicode.Utf8.IsValid(bytes.Span))
+        {
+            int bad = FirstInvalidUtf8(bytes.Span);
+            int line = 1, col = 1;
+            for (int i = 0; i < bad; i++) { if (bytes.Span[i] == (byte)'\n') { line++; col = 1; } else if ((bytes.Span[i] & 0xC0) != 0x80) col++; }
+            list.Add(new ReadDiagnostic(source, line, col, "not valid UTF-8 text; save the specification as UTF-8"));
+            return null;
+        }
         Dictionary<string, (int Line, int Column)> positions;
         JsonDocument doc;
         try
         {
-            positions = Positions(bytes.Span);
+            positions = Positions(bytes.Span, out var duplicates);
+            foreach (var (dupPath, line, col) in duplicates)
+                list.Add(new ReadDiagnostic(source, line, col, $"duplicate key '{dupPath[(dupPath.LastIndexOf('/') + 1)..]}'; each key may appear once (a second one would silently replace the first)"));
+            if (list.Count > 0) return null;
             doc = JsonDocument.Parse(bytes, new JsonDocumentOptions { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true });
         }
         catch (JsonException ex)
@@ -60,7 +89,13 @@ public static class SpecReader
             foreach (var p in root.EnumerateObject())
                 if (!TopLevel.Contains(p.Name)) Error("/" + p.Name, $"unknown field '{p.Name}'; expected name, description, target, chromaticity or limits");
 
-            string name = root.TryGetProperty("name", out var n) && n.ValueKind == JsonValueKind.String ? n.GetString()! : "unnamed specification";
+            string name = "unnamed specification";
+            if (root.TryGetProperty("name", out var n))
+            {
+                if (n.ValueKind == JsonValueKind.String) name = n.GetString()!;
+                else Error("/name", "name must be a text in quotes, e.g. \"DL-30 warm white\"");
+            }
+            if (root.TryGetProperty("description", out var desc) && desc.ValueKind != JsonValueKind.String) Error("/description", "description must be a text in quotes");
             ChromaticityTarget? target = null;
             if (root.TryGetProperty("target", out var t)) target = ReadTarget(t, Error);
             var tolerance = new ChromaticityTolerance(ToleranceKind.None, 0);
@@ -85,6 +120,8 @@ public static class SpecReader
                     }
                 }
             }
+            if (list.Count == 0 && tolerance.Kind == ToleranceKind.None && limits.Count == 0)
+                Error("", "the specification checks nothing: give a chromaticity tolerance (with a target) or at least one limit");
             if (list.Count > 0) return null;
             return new ToleranceSpec(name, target, tolerance, limits) { Warnings = warnings };
         }
@@ -96,7 +133,8 @@ public static class SpecReader
         var names = t.EnumerateObject().Select(p => p.Name).ToHashSet(StringComparer.Ordinal);
         double Num(string field)
         {
-            if (t.GetProperty(field).ValueKind != JsonValueKind.Number) { error($"/target/{field}", $"target.{field} must be a number"); return double.NaN; }
+            if (t.GetProperty(field).ValueKind != JsonValueKind.Number || !double.IsFinite(t.GetProperty(field).GetDouble()))
+            { error($"/target/{field}", $"target.{field} must be a number within the range of double precision"); return double.NaN; }
             return t.GetProperty(field).GetDouble();
         }
         if (names.SetEquals(["nominalCct"]) || names.SetEquals(["nominalCct", "edition"]))
@@ -188,17 +226,30 @@ public static class SpecReader
             return null;
         }
         double? min = null, max = null;
-        if (item.TryGetProperty("min", out var mn)) { if (mn.ValueKind != JsonValueKind.Number) { error($"{path}/min", "min must be a number"); return null; } min = mn.GetDouble(); }
-        if (item.TryGetProperty("max", out var mx)) { if (mx.ValueKind != JsonValueKind.Number) { error($"{path}/max", "max must be a number"); return null; } max = mx.GetDouble(); }
+        if (item.TryGetProperty("min", out var mn)) { if (mn.ValueKind != JsonValueKind.Number) { error($"{path}/min", "min must be a number"); return null; } min = mn.GetDouble(); if (!double.IsFinite(min.Value)) { error($"{path}/min", "min is beyond the range of double precision"); return null; } }
+        if (item.TryGetProperty("max", out var mx)) { if (mx.ValueKind != JsonValueKind.Number) { error($"{path}/max", "max must be a number"); return null; } max = mx.GetDouble(); if (!double.IsFinite(max.Value)) { error($"{path}/max", "max is beyond the range of double precision"); return null; } }
         if (min is null && max is null) { error(path, $"limit on '{field}' has neither min nor max"); return null; }
         if (min is { } a && max is { } b && a > b) { error(path, $"impossible limit on '{field}': min {a} is above max {b}"); return null; }
         return new FieldLimit(field, min, max, line);
     }
 
     /// <summary>Line and column (one-based) of every value, keyed by JSON pointer (e.g. /limits/1/field).</summary>
-    private static Dictionary<string, (int Line, int Column)> Positions(ReadOnlySpan<byte> json)
+    private static int FirstInvalidUtf8(ReadOnlySpan<byte> bytes)
+    {
+        int i = 0;
+        while (i < bytes.Length)
+        {
+            var status = System.Text.Rune.DecodeFromUtf8(bytes[i..], out _, out int consumed);
+            if (status != System.Buffers.OperationStatus.Done) return i;
+            i += consumed;
+        }
+        return bytes.Length;
+    }
+
+    private static Dictionary<string, (int Line, int Column)> Positions(ReadOnlySpan<byte> json, out List<(string Path, int Line, int Column)> duplicates)
     {
         var result = new Dictionary<string, (int, int)>(StringComparer.Ordinal);
+        duplicates = [];
         var reader = new Utf8JsonReader(json, new JsonReaderOptions { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true });
         var stack = new Stack<(bool IsArray, int Index, string Path)>();
         string? pendingName = null;
@@ -226,7 +277,9 @@ public static class SpecReader
             {
                 case JsonTokenType.PropertyName:
                     pendingName = reader.GetString();
-                    result[$"{stack.Peek().Path}/{pendingName}"] = At(reader.TokenStartIndex);
+                    string key = $"{stack.Peek().Path}/{pendingName}";
+                    var at = At(reader.TokenStartIndex);
+                    if (!result.TryAdd(key, at)) duplicates.Add((key, at.Item1, at.Item2));
                     break;
                 case JsonTokenType.StartObject:
                 case JsonTokenType.StartArray:
