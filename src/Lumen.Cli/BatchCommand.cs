@@ -11,7 +11,7 @@ using Lumen.Formats;
 namespace Lumen.Cli;
 
 /// <summary><c>lumen batch INPUT... --spec SPEC</c>: streams many spectra through the assessment and a tolerance spec.</summary>
-internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal)
+internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal, CancellationToken interrupt = default)
 {
     private readonly InputOptions _inputs = new();
     public Option<string> Spec { get; } = new("--spec") { Description = "Tolerance specification (JSON; see examples/batch/spec-dl30.json).", Required = true };
@@ -50,10 +50,18 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                 var writer = new BatchResultWriter(w, json, spec!.Spec);
                 summary = Run(inputs, spec, writer, threads);
                 writer.Complete();
-            });
+            }, partial: () => interrupt.IsCancellationRequested);
         }
         catch (BatchWriteException ex) { failure = ex.Message; }
         if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
+        if (interrupt.IsCancellationRequested)
+        {
+            string where = OutputTarget.IsStdout(outPath) ? "standard output" : $"'{OutputTarget.PartialPath(outPath!)}' ({(json ? "a complete JSON array" : "complete CSV rows")})";
+            stderr.WriteLine($"lumen: interrupted: {summary!.RecordsRead:N0} records were written to {where}; "
+                + (OutputTarget.IsStdout(outPath) ? "" : $"'{outPath}' was not changed. ")
+                + "No summary was written. Run the batch again to get the complete results.");
+            return ExitCodes.Interrupted;
+        }
 
         var summaryTarget = summaryPath ?? (OutputTarget.IsStdout(outPath) ? null : "-");
         bool summaryJson = summaryPath?.EndsWith(".json", StringComparison.OrdinalIgnoreCase) == true;
@@ -91,6 +99,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                 var chunk = new List<InputRecord>(ChunkSize);
                 foreach (var record in inputs.Records(stdin, progress))
                 {
+                    if (interrupt.IsCancellationRequested) break; // stop reading; what is in flight is still written
                     chunk.Add(record);
                     if (chunk.Count == ChunkSize) { toCompute.Add(chunk); chunk = new List<InputRecord>(ChunkSize); }
                 }

@@ -21,6 +21,9 @@ public static class ExitCodes
     /// <summary>An internal error in Lumen (a bug): one line on standard error names what failed; <c>LUMEN_DEBUG=1</c> adds the trace.</summary>
     public const int InternalError = 5;
 
+    /// <summary>Interrupted (SIGINT or SIGTERM): what was computed is in a <c>.partial</c> file beside the output, which keeps its previous content.</summary>
+    public const int Interrupted = 6;
+
     /// <summary>One line per code, for <c>--help</c> and messages.</summary>
-    public const string Legend = "Exit codes: 0 success; 1 some results fail the specification; 2 usage error; 3 some input records unreadable (error rows written); 4 an output could not be written; 5 internal error.";
+    public const string Legend = "Exit codes: 0 success; 1 some results fail the specification; 2 usage error; 3 some input records unreadable (error rows written); 4 an output could not be written; 5 internal error; 6 interrupted (partial results in FILE.partial).";
 }

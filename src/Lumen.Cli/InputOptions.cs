@@ -45,6 +45,16 @@ internal sealed class InputOptions
     public bool TryResolve(ParseResult parse, TextWriter stderr, out InputSelection selection, params string?[] outputs)
     {
         selection = default!;
+        foreach (var given in Given(parse))
+        {
+            // System.CommandLine passes an unknown "--name" through as an argument; a file of that name is rare, an
+            // option typo is not.
+            if (given.Length > 1 && given[0] == '-' && !File.Exists(given) && !Directory.Exists(given))
+            {
+                stderr.WriteLine($"lumen: unknown option '{given}' (to read a file whose name starts with '-', write ./{given}). Try 'lumen --help'.");
+                return false;
+            }
+        }
         SpectralUnit? unit = null;
         if (parse.GetValue(Unit) is { } text)
         {

@@ -33,7 +33,7 @@ internal static class OutputTarget
 
     /// <summary>Writes text to standard output or atomically to a file.</summary>
     /// <returns>Null on success, else the reason it could not be written.</returns>
-    public static string? WriteText(string? path, TextWriter stdout, Action<TextWriter> write)
+    public static string? WriteText(string? path, TextWriter stdout, Action<TextWriter> write, Func<bool>? partial = null)
     {
         if (IsStdout(path))
         {
@@ -52,16 +52,22 @@ internal static class OutputTarget
         {
             using var w = new StreamWriter(stream, new UTF8Encoding(false), 1 << 16, leaveOpen: true);
             write(w);
-        });
+        }, partial);
     }
 
     /// <summary>Writes bytes atomically to a file.</summary>
     /// <returns>Null on success, else the reason it could not be written.</returns>
     public static string? WriteBytes(string path, byte[] bytes) => WriteFile(path, s => s.Write(bytes));
 
-    /// <summary>Writes a file through a temporary file in the same folder, then renames it over the target.</summary>
+    /// <summary>The name an interrupted run's output gets: the target's name with <c>.partial</c> appended.</summary>
+    public static string PartialPath(string path) => path + ".partial";
+
+    /// <summary>
+    /// Writes a file through a temporary file in the same folder, then renames it over the target — or, when
+    /// <paramref name="partial"/> says the run was interrupted, to <see cref="PartialPath"/>, leaving the target as it was.
+    /// </summary>
     /// <returns>Null on success, else the reason it could not be written.</returns>
-    public static string? WriteFile(string path, Action<Stream> write)
+    public static string? WriteFile(string path, Action<Stream> write, Func<bool>? partial = null)
     {
         string full, temp;
         try
@@ -81,7 +87,7 @@ internal static class OutputTarget
                 write(stream);
                 stream.Flush(flushToDisk: true);
             }
-            File.Move(temp, full, overwrite: true);
+            File.Move(temp, partial?.Invoke() == true ? PartialPath(full) : full, overwrite: true);
             return null;
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)

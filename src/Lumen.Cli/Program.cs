@@ -1,3 +1,5 @@
+using System.Runtime.InteropServices;
+
 namespace Lumen.Cli;
 
 /// <summary>Entry point.</summary>
@@ -9,9 +11,24 @@ public static class Program
     public static int Main(string[] args)
     {
         var stdout = new StreamWriter(Console.OpenStandardOutput()) { AutoFlush = false };
+        using var interrupt = new CancellationTokenSource();
+        // SIGINT (Ctrl+C) and SIGTERM ask a running batch to stop cleanly: it writes what it has computed to a .partial
+        // file and exits with its own code. A second signal is left to the default handling.
+        Console.CancelKeyPress += (_, e) =>
+        {
+            if (interrupt.IsCancellationRequested) return;
+            e.Cancel = true;
+            interrupt.Cancel();
+        };
+        using var sigterm = PosixSignalRegistration.Create(PosixSignal.SIGTERM, ctx =>
+        {
+            if (interrupt.IsCancellationRequested) return;
+            ctx.Cancel = true;
+            interrupt.Cancel();
+        });
         try
         {
-            return LumenApp.Run(args, Console.In, stdout, Console.Error, !Console.IsErrorRedirected);
+            return LumenApp.Run(args, Console.In, stdout, Console.Error, !Console.IsErrorRedirected, interrupt.Token);
         }
         finally
         {
