@@ -86,16 +86,25 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         var c2 = parse.GetValue(C2Option) == "codata" ? C2Convention.Codata2018 : C2Convention.Cie15Its90;
         var options = new AssessmentOptions(observer, new CctOptions(C2: c2), metrics);
 
-        var items = new List<RecordOutcome>();
-        foreach (var record in inputs.Records(stdin))
+        var format = CommonOptions.ToOutputFormat(parse.GetValue(FormatOption));
+        bool anyError = false;
+        RecordOutcome Next(InputRecord record)
         {
             var outcome = RecordOutcome.Of(record, options);
             CommonOptions.ReportError(stderr, outcome.Error);
-            items.Add(outcome);
+            anyError |= outcome.Error is not null;
+            return outcome;
         }
-        var format = CommonOptions.ToOutputFormat(parse.GetValue(FormatOption));
-        if (OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(items, format, w, parse.GetValue(DetailOption))) is { } failure)
-            return CommonOptions.OutputFailed(stderr, failure);
-        return items.Any(i => i.Error is not null) ? ExitCodes.InputErrors : ExitCodes.Success;
+        // JSON and CSV stream record by record (flat memory); the text table is sized from all rows.
+        string? failure = format == OutputFormat.Text
+            ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(inputs.Records(stdin).Select(Next).ToList(), format, w, parse.GetValue(DetailOption)))
+            : OutputTarget.WriteText(outPath, stdout, w =>
+            {
+                var writer = new AnalysisStreamWriter(w, format);
+                foreach (var record in inputs.Records(stdin)) writer.Write(Next(record));
+                writer.Complete();
+            });
+        if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
+        return anyError ? ExitCodes.InputErrors : ExitCodes.Success;
     }
 }

@@ -1,0 +1,49 @@
+using Lumen.Analysis;
+
+namespace Lumen.Formats;
+
+/// <summary>
+/// Writes <c>lumen analyze</c> results as JSON or CSV one record at a time, as they are computed, so memory stays flat
+/// however many spectra there are. (The text table needs every row to size its columns and is written by
+/// <see cref="AnalysisWriter"/>.)
+/// </summary>
+public sealed class AnalysisStreamWriter
+{
+    private readonly TextWriter _out;
+    private readonly bool _json;
+    private bool _first = true;
+
+    /// <summary>Starts the output: the CSV header, or the opening bracket of the JSON array.</summary>
+    /// <param name="output">Destination.</param>
+    /// <param name="format"><see cref="OutputFormat.Json"/> or <see cref="OutputFormat.Csv"/>.</param>
+    /// <exception cref="ArgumentException">The format is <see cref="OutputFormat.Text"/>.</exception>
+    public AnalysisStreamWriter(TextWriter output, OutputFormat format)
+    {
+        ArgumentNullException.ThrowIfNull(output);
+        if (format == OutputFormat.Text) throw new ArgumentException("The text table is not streamed.", nameof(format));
+        _out = output;
+        _json = format == OutputFormat.Json;
+        if (_json) _out.Write('[');
+        else AnalysisColumns.Csv.WriteCsvHeader(_out);
+    }
+
+    /// <summary>Writes one record.</summary>
+    /// <param name="item">The outcome.</param>
+    public void Write(RecordOutcome item)
+    {
+        ArgumentNullException.ThrowIfNull(item);
+        if (!_json) { AnalysisColumns.Csv.WriteCsvRow(_out, item); return; }
+        _out.Write(_first ? "\n" : ",\n");
+        _first = false;
+        using var sw = new StringWriter();
+        JsonOutput.Write(sw, w => AnalysisWriter.WriteRecord(w, item));
+        _out.Write(sw.ToString().TrimEnd('\n', '\r'));
+    }
+
+    /// <summary>Finishes the output (the closing bracket of the JSON array).</summary>
+    public void Complete()
+    {
+        if (_json) _out.WriteLine(_first ? "]" : "\n]");
+        _out.Flush();
+    }
+}
