@@ -251,6 +251,7 @@ public static class AnalysisWriter
         w.WriteString("sampling", p.Sampling);
         w.WriteEndObject();
         w.WriteNumber("negativeSamples", p.NegativeSamples);
+        if (p.InputLayout is not null) w.WriteString("inputLayout", p.InputLayout);
         w.WriteEndObject();
     }
 

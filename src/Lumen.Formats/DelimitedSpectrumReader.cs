@@ -161,7 +161,7 @@ public static class DelimitedSpectrumReader
             }
             try
             {
-                var s = new Spectrum(wavelengths!.ToArray(), values![c].ToArray(), finalUnit, name, new SpectrumOrigin(source, c + 1));
+                var s = new Spectrum(wavelengths!.ToArray(), values![c].ToArray(), finalUnit, name, new SpectrumOrigin(source, c + 1) { Layout = "column layout (wavelengths down the first column, one spectrum per column)" });
                 records.Add(new SpectrumRecord(source, c + 1, name, s));
             }
             catch (InvalidSpectrumException ex)

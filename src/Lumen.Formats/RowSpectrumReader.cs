@@ -101,7 +101,7 @@ public static class RowSpectrumReader
         int idColumns = 0, expectedCells = 0;
         char d = ',';
         string? line;
-        int lineNo = 0;
+        int lineNo = 0, rows = 0;
         while ((line = reader.ReadLine()) is not null)
         {
             lineNo++;
@@ -142,8 +142,11 @@ public static class RowSpectrumReader
                 for (int i = 0; i < wavelengths.Length; i++) DelimitedSpectrumReader.TryParseNumber(header[idColumns + i], d, out wavelengths[i]);
                 continue;
             }
+            rows++;
             yield return ParseRow(t, lineNo);
         }
+        if (wavelengths is not null && rows == 0)
+            yield return new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, Math.Max(1, lineNo), 1, "header only; expected one row per unit after the wavelength header"));
         if (wavelengths is null)
             yield return new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, Math.Max(1, lineNo), 1, "empty file; expected a wavelength header row"));
 
@@ -164,7 +167,7 @@ public static class RowSpectrumReader
             }
             try
             {
-                var s = new Spectrum(wavelengths, values, declared ?? SpectralUnit.Relative, name, new SpectrumOrigin($"{source}, line {ln}", 0));
+                var s = new Spectrum(wavelengths, values, declared ?? SpectralUnit.Relative, name, new SpectrumOrigin($"{source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" });
                 return new SpectrumRecord(source, 0, name, s) { Line = ln };
             }
             catch (InvalidSpectrumException ex)

@@ -189,4 +189,29 @@ public class ReaderFuzzTests
             Assert.All(rowRecs, r => Assert.True(r.Spectrum is not null ^ r.Error is not null));
         }
     }
+
+    [Fact]
+    public void Mutated_specifications_never_throw_and_either_read_or_name_a_line()
+    {
+        var seed = """{"name": "x", "target": {"nominalCct": 3000}, "chromaticity": {"ellipseSteps": 3}, "limits": [{"field": "cri.ra", "min": 80}, {"field": "cct.duv", "min": -0.006, "max": 0.006}]}"""u8.ToArray();
+        var rng = new Random(7);
+        byte[] atoms = [.. "{}[]\",:-.0123456789e "u8, 0xFF, 0xC3, 0x00];
+        for (int trial = 0; trial < 3000; trial++)
+        {
+            var b = new List<byte>(seed);
+            for (int k = rng.Next(1, 5); k > 0; k--)
+            {
+                int at = rng.Next(b.Count + 1);
+                switch (rng.Next(3))
+                {
+                    case 0: b.Insert(at, atoms[rng.Next(atoms.Length)]); break;
+                    case 1 when at < b.Count: b.RemoveAt(at); break;
+                    default: if (at < b.Count) b[at] = atoms[rng.Next(atoms.Length)]; break;
+                }
+            }
+            var spec = SpecReader.Read(b.ToArray(), "fuzz.json", out var errors);
+            Assert.True(spec is not null ^ errors.Count > 0);
+            Assert.All(errors, e => Assert.True(e.Line >= 1 && e.Column >= 1, e.ToString()));
+        }
+    }
 }

@@ -89,7 +89,10 @@ public static class Assessor
             },
             ["CIE 015:2018 (colorimetry)", "ISO/CIE 11664-1:2019 (observers)", "ANSI C78.377 (Duv sign)", "CIE 13.3-1995 (Ra, Ri)", "CIE 224:2017 (Rf)", "ANSI/IES TM-30-20 (Rg, hue bins)", "CIE 018:2019 (photometry)", "CIE S 026:2018 (α-opic)"],
             PlanckConstants.For(cctOpt.C2).C2,
-            spectrum.FirstNm, spectrum.LastNm, samples.StartNm, samples.EndNm, samples.StepNm, samples.Method, spectrum.NegativeSampleCount);
+            spectrum.FirstNm, spectrum.LastNm, samples.StartNm, samples.EndNm, samples.StepNm, samples.Method, spectrum.NegativeSampleCount)
+        {
+            InputLayout = spectrum.Origin.Layout,
+        };
         Tristimulus? absolute = null;
         if (spectrum.Unit.IsAbsolute())
         {

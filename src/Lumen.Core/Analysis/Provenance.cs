@@ -30,4 +30,8 @@ public sealed record Provenance(
     int IntegrationEndNm,
     int IntegrationStepNm,
     string Sampling,
-    int NegativeSamples);
+    int NegativeSamples)
+{
+    /// <summary>How the input file was laid out, as the reader detected it (or was told); null for spectra made in code.</summary>
+    public string? InputLayout { get; init; }
+}

@@ -5,6 +5,9 @@ namespace Lumen.Spectra;
 /// <param name="Column">One-based column in the source, or 0 when not from a table.</param>
 public readonly record struct SpectrumOrigin(string Source, int Column)
 {
+    /// <summary>How the reader found the spectrum in its file (e.g. "column layout", "row layout"), or null when not read from a table.</summary>
+    public string? Layout { get; init; }
+
     /// <summary>An origin for spectra made in code (generated, CIE tables).</summary>
     /// <param name="label">A short label, e.g. <c>CIE illuminant A</c>.</param>
     /// <returns>The origin.</returns>
