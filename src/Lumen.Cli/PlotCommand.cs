@@ -17,6 +17,8 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
     public Option<string?> Spec { get; } = new("--spec") { Description = "Tolerance spec: draws its quadrangle/ellipse/circle and marks points pass/fail." };
     public Option<string?> Name { get; } = new("--name") { Description = "Which spectrum to draw (swatch, spectrum, vector); default the first." };
     public Option<bool> Absolute { get; } = new("--absolute") { Description = "Spectrum plot in the file's absolute unit instead of normalised." };
+    public Option<bool> Compare { get; } = new("--compare") { Description = "Show all sources against a reference: locus with a marker, label and correction arrow per source; spectrum overlay at equal luminance; swatch rows per source after white balance." };
+    public Option<string?> Reference { get; } = new("--reference", "-r") { Description = "With --compare: the reference spectrum's name (default: the first)." };
 
     public Command Build()
     {
@@ -24,7 +26,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         Space.AcceptOnlyFromAmong("xy", "uv");
         var cmd = new Command("plot", "Draw a swatch, chromaticity diagram (locus), spectrum or TM-30 vector graphic as PNG or SVG.") { Kind };
         _inputs.AddTo(cmd);
-        cmd.Add(Out); cmd.Add(Size); cmd.Add(Space); cmd.Add(Spec); cmd.Add(Name); cmd.Add(Absolute);
+        cmd.Add(Out); cmd.Add(Size); cmd.Add(Space); cmd.Add(Spec); cmd.Add(Name); cmd.Add(Absolute); cmd.Add(Compare); cmd.Add(Reference);
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -57,6 +59,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         }
         var ok = items.Where(i => i.Assessment is not null).ToList();
         if (ok.Count == 0) return Fail("no readable spectrum to plot.");
+        if (parse.GetValue(Compare)) return ExecuteCompare(parse, kind, outPath, svg, w, h, ok, items.Any(i => i.Error is not null));
         string? name = parse.GetValue(Name);
         var chosen = name is null ? ok[0] : ok.FirstOrDefault(i => i.Record.Name == name);
         if (chosen is null) return Fail($"no spectrum named '{name}'; names: {string.Join(", ", ok.Select(i => i.Record.Name).Take(20))}.");
@@ -90,6 +93,47 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
         if (!OutputTarget.IsStdout(outPath)) stdout.WriteLine($"wrote {outPath}");
         return items.Any(i => i.Error is not null) ? ExitCodes.InputErrors : ExitCodes.Success;
+    }
+
+    private int ExecuteCompare(ParseResult parse, string kind, string outPath, bool svg, int w, int h, List<RecordOutcome> ok, bool anyError)
+    {
+        if (ok.Count < 2) return Fail("--compare needs a reference and at least one other spectrum.");
+        string? refName = parse.GetValue(Reference);
+        var reference = refName is null ? ok[0] : ok.FirstOrDefault(i => i.Record.Name == refName);
+        if (reference is null) return Fail($"no spectrum named '{refName}'; names: {string.Join(", ", ok.Select(i => i.Record.Name).Take(20))}.");
+        var ordered = new[] { reference }.Concat(ok.Where(i => !ReferenceEquals(i, reference))).ToList();
+        var spectra = ordered.Select(i => ((SpectrumRecord)i.Record).Spectrum).ToList();
+        Action<SkiaSharp.SKCanvas, SkiaSharp.SKSize> draw;
+        switch (kind)
+        {
+            case "locus":
+                var space = parse.GetValue(Space) == "uv" ? DiagramSpace.UPrimeVPrime : DiagramSpace.Xy;
+                var refC = reference.Assessment!.Chromaticity2Degree;
+                var options = new DiagramOptions(space, ordered.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree, PointStatus.None)).ToList(), null,
+                    $"Sources against {reference.Record.Name} ({(space == DiagramSpace.Xy ? "CIE 1931 xy" : "CIE 1976 u′v′")})")
+                {
+                    DistinctSources = true,
+                    Arrows = ordered.Skip(1).Select(i => (i.Assessment!.Chromaticity2Degree, refC)).ToList(),
+                };
+                draw = (c, z) => ChromaticityDiagram.Draw(c, z, options);
+                break;
+            case "spectrum":
+                draw = (c, z) => SpectrumPlot.DrawMany(c, z, spectra);
+                break;
+            case "swatch":
+                if (parse.GetValue(Size) is null) h = Math.Clamp(260 + 80 * spectra.Count, 400, 8000);
+                draw = (c, z) => SwatchPlot.DrawComparison(c, z, spectra[0], reference.Assessment!.Fidelity, spectra.Skip(1).ToList());
+                break;
+            default:
+                return Fail("--compare draws locus, spectrum or swatch; the vector graphic shows one source at a time.");
+        }
+        string? failure = OutputTarget.IsStdout(outPath)
+            ? OutputTarget.WriteText(outPath, stdout, t => t.Write(Render.Svg(w, h, draw)))
+            : svg ? OutputTarget.WriteBytes(outPath, new UTF8Encoding(false).GetBytes(Render.Svg(w, h, draw)))
+            : OutputTarget.WriteBytes(outPath, Render.Png(w, h, draw));
+        if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
+        if (!OutputTarget.IsStdout(outPath)) stdout.WriteLine($"wrote {outPath}");
+        return anyError ? ExitCodes.InputErrors : ExitCodes.Success;
     }
 
     private int Fail(string message)

@@ -88,7 +88,12 @@ public static class ChromaticityDiagram
         }
         DrawPlanckian(canvas, m, space, s);
         if (options.Spec is { } spec) DrawSpec(canvas, m, space, spec, s);
-        DrawPoints(canvas, m, space, options.Points, s);
+        if (options.DistinctSources)
+        {
+            DrawArrows(canvas, m, space, options.Arrows, s);
+            DrawSources(canvas, m, space, options.Points, s);
+        }
+        else DrawPoints(canvas, m, space, options.Points, s);
         canvas.Restore();
         Style.Text(canvas, options.Title, m.Plot.Left, 36 * s, 20 * s, Style.Ink, bold: true);
         DrawLegend(canvas, m, options, s);
@@ -270,6 +275,76 @@ public static class ChromaticityDiagram
         }
     }
 
+    private static void DrawArrows(SKCanvas canvas, AxisMapping m, DiagramSpace space, IReadOnlyList<(Chromaticity From, Chromaticity To)> arrows, float s)
+    {
+        using var pen = Style.Stroke(Style.Muted, 1.6f * s);
+        using var head = Style.Fill(Style.Muted);
+        foreach (var (from, to) in arrows)
+        {
+            if (!from.IsDefined || !to.IsDefined) continue;
+            var a = Coord(from, space);
+            var b = Coord(to, space);
+            float x0 = m.Px(a.X), y0 = m.Py(a.Y), x1 = m.Px(b.X), y1 = m.Py(b.Y);
+            float dx = x1 - x0, dy = y1 - y0, len = MathF.Sqrt(dx * dx + dy * dy);
+            if (len < 12 * s) continue;
+            float ux = dx / len, uy = dy / len;
+            // Stop short of the target marker so the head stays visible.
+            x1 -= ux * 9 * s; y1 -= uy * 9 * s;
+            canvas.DrawLine(x0 + ux * 8 * s, y0 + uy * 8 * s, x1, y1, pen);
+            using var path = new SKPath();
+            path.MoveTo(x1, y1);
+            path.LineTo(x1 - ux * 10 * s - uy * 5 * s, y1 - uy * 10 * s + ux * 5 * s);
+            path.LineTo(x1 - ux * 10 * s + uy * 5 * s, y1 - uy * 10 * s - ux * 5 * s);
+            path.Close();
+            canvas.DrawPath(path, head);
+        }
+    }
+
+    /// <summary>Each source with its own colour and marker, and a label placed clear of the other labels and markers.</summary>
+    private static void DrawSources(SKCanvas canvas, AxisMapping m, DiagramSpace space, IReadOnlyList<DiagramPoint> points, float s)
+    {
+        float r = 6 * s, fontSize = 12.5f * s;
+        var placed = new List<SKRect>();
+        var centres = points.Where(p => p.Chromaticity.IsDefined).Select(p => { var c = Coord(p.Chromaticity, space); return new SKPoint(m.Px(c.X), m.Py(c.Y)); }).ToList();
+        foreach (var c in centres) placed.Add(new SKRect(c.X - r - 2 * s, c.Y - r - 2 * s, c.X + r + 2 * s, c.Y + r + 2 * s));
+        using var font = new SKFont(Typefaces.Regular, fontSize);
+        for (int i = 0, k = 0; i < points.Count; i++)
+        {
+            var p = points[i];
+            if (!p.Chromaticity.IsDefined) continue;
+            var c = centres[k++];
+            Style.Marker(canvas, i, c.X, c.Y, r, Style.Series[i % Style.Series.Length], s);
+            float w = font.MeasureText(p.Label), h = fontSize;
+            // Candidate label positions: beside the marker first, then further out in eight directions (with a leader line).
+            SKRect? chosen = null;
+            bool leader = false;
+            foreach (float dist in new[] { 0f, 28 * s, 56 * s, 90 * s })
+            {
+                foreach (var (ox, oy) in new[] { (1f, 0f), (-1f, 0f), (0f, -1f), (0f, 1f), (1f, -1f), (-1f, -1f), (1f, 1f), (-1f, 1f) })
+                {
+                    float lx = ox > 0 ? c.X + r + 4 * s + dist : ox < 0 ? c.X - r - 4 * s - w - dist : c.X - w / 2;
+                    float ly = oy < 0 ? c.Y - r - 4 * s - dist : oy > 0 ? c.Y + r + 4 * s + h + dist : c.Y + h / 3;
+                    var rect = new SKRect(lx - 2 * s, ly - h, lx + w + 2 * s, ly + 3 * s);
+                    if (!m.Plot.Contains(rect) || placed.Any(q => q.IntersectsWith(rect))) continue;
+                    chosen = rect;
+                    leader = dist > 0;
+                    break;
+                }
+                if (chosen is not null) break;
+            }
+            var box = chosen ?? new SKRect(c.X + r + 4 * s, c.Y - h, c.X + r + 4 * s + w, c.Y + 3 * s);
+            placed.Add(box);
+            if (leader)
+            {
+                using var lp = Style.Stroke(Style.Muted, 1 * s);
+                float tx = Math.Clamp(c.X, box.Left, box.Right), ty = Math.Clamp(c.Y, box.Top, box.Bottom);
+                canvas.DrawLine(c.X, c.Y, tx, ty, lp);
+            }
+            using (var bg = Style.Fill(new SKColor(255, 255, 255, 215))) canvas.DrawRect(box, bg);
+            Style.Text(canvas, p.Label, box.Left + 2 * s, box.Bottom - 3 * s, fontSize, Style.Series[i % Style.Series.Length], bold: true);
+        }
+    }
+
     private static void DrawLegend(SKCanvas canvas, AxisMapping m, DiagramOptions o, float s)
     {
         var items = new List<(string Text, Action<float, float> Glyph)>();
@@ -283,7 +358,16 @@ public static class ChromaticityDiagram
                 ToleranceKind.UPrimeVPrimeRadius => $"Δu′v′ circle {o.Spec.Spec.Tolerance.Value:0.####}",
                 _ => "target",
             }, (x, y) => { using var p = Style.Stroke(Style.Accent, 2 * s); canvas.DrawLine(x, y, x + 22 * s, y, p); }));
-        int pass = o.Points.Count(p => p.Status == PointStatus.Pass), fail = o.Points.Count(p => p.Status == PointStatus.Fail), none = o.Points.Count(p => p.Status == PointStatus.None);
+        if (o.DistinctSources)
+        {
+            for (int i = 0; i < o.Points.Count; i++)
+            {
+                int k = i;
+                items.Add((o.Points[i].Label, (x, y) => Style.Marker(canvas, k, x + 11 * s, y, 5.5f * s, Style.Series[k % Style.Series.Length], s)));
+            }
+            if (o.Arrows.Count > 0) items.Add(("correction (source → reference)", (x, y) => { using var p = Style.Stroke(Style.Muted, 1.6f * s); canvas.DrawLine(x, y, x + 22 * s, y, p); }));
+        }
+        int pass = o.DistinctSources ? 0 : o.Points.Count(p => p.Status == PointStatus.Pass), fail = o.DistinctSources ? 0 : o.Points.Count(p => p.Status == PointStatus.Fail), none = o.DistinctSources ? 0 : o.Points.Count(p => p.Status == PointStatus.None);
         if (pass > 0) items.Add(($"pass ({pass})", (x, y) => { using var p = Style.Fill(Style.Pass); canvas.DrawCircle(x + 11 * s, y, 5 * s, p); }));
         if (fail > 0) items.Add(($"fail ({fail})", (x, y) => { using var p = Style.Stroke(Style.Fail, 2.2f * s); canvas.DrawLine(x + 6 * s, y - 5 * s, x + 16 * s, y + 5 * s, p); canvas.DrawLine(x + 6 * s, y + 5 * s, x + 16 * s, y - 5 * s, p); }));
         if (none > 0) items.Add(($"measured ({none})", (x, y) => { using var p = Style.Fill(Style.Neutral); canvas.DrawCircle(x + 11 * s, y, 5 * s, p); }));

@@ -93,6 +93,63 @@ public static class SpectrumPlot
         }
     }
 
+    /// <summary>
+    /// Several spectra overlaid for comparison, each scaled to the same luminance (equal Σ S·ȳ, CIE 1931 2°) and then all by
+    /// one factor so the highest peak is 1; each in its own colour and dash pattern, with a legend.
+    /// </summary>
+    /// <param name="canvas">Canvas.</param>
+    /// <param name="size">Size, pixels.</param>
+    /// <param name="spectra">The spectra, the reference first (drawn solid).</param>
+    public static void DrawMany(SKCanvas canvas, SKSize size, IReadOnlyList<Spectrum> spectra)
+    {
+        ArgumentNullException.ThrowIfNull(canvas);
+        ArgumentNullException.ThrowIfNull(spectra);
+        float s = Style.Scale(size);
+        var scales = spectra.Select(sp => Colorimeter.RawSums(Resampler.ForCieSums(sp), Observer.Cie1931TwoDegree).Y is var y && y > 0 && double.IsFinite(y) ? 1 / y : 0).ToArray();
+        double top = spectra.Select((sp, i) => sp.Values.ToArray().DefaultIfEmpty(0).Max() * scales[i]).DefaultIfEmpty(0).Max();
+        if (!(top > 0)) top = 1;
+        for (int i = 0; i < scales.Length; i++) scales[i] /= top;
+        double x0 = Math.Min(380, spectra.Min(sp => sp.FirstNm)), x1 = Math.Max(780, spectra.Max(sp => sp.LastNm));
+        var plot = new SKRect(90 * s, 60 * s, size.Width - 30 * s, size.Height - 110 * s);
+        var m = new AxisMapping(plot, x0, x1, 0, 1.1);
+        m.DrawAxes(canvas, "wavelength (nm)", "relative spectral power (equal luminance)", s, "0", "0.0#");
+        for (int wl = (int)Math.Ceiling(x0); wl < x1; wl++)
+        {
+            using var p = Style.Fill(WavelengthColor(wl));
+            canvas.DrawRect(new SKRect(m.Px(wl), plot.Bottom + 52 * s, m.Px(wl + 1) + 0.5f, plot.Bottom + 66 * s), p);
+        }
+        float[][] dashes = [[], [10, 5], [3, 4], [12, 4, 3, 4]];
+        canvas.Save();
+        canvas.ClipRect(plot);
+        for (int i = 0; i < spectra.Count; i++)
+        {
+            var sp = spectra[i];
+            var pts = new SKPoint[sp.Count];
+            for (int k = 0; k < sp.Count; k++) pts[k] = new SKPoint(m.Px(sp.WavelengthsNm[k]), m.Py(sp.Values[k] * scales[i]));
+            using var pen = Style.Stroke(Style.Series[i % Style.Series.Length], (i == 0 ? 2.6f : 2f) * s);
+            var d = dashes[i % dashes.Length];
+            if (d.Length == 0)
+            {
+                using var path = new SKPath();
+                path.AddPoly(pts, false);
+                canvas.DrawPath(path, pen);
+            }
+            else Style.DashedPolyline(canvas, pts, pen, d[0] * s, d[1] * s);
+        }
+        canvas.Restore();
+        Style.Text(canvas, spectra.Count == 2 ? $"Spectra — {spectra[0].Name} and {spectra[1].Name}" : $"Spectra — {spectra.Count} sources", plot.Left, 36 * s, 20 * s, Style.Ink, bold: true);
+        float lx = plot.Right - 330 * s, ly = plot.Top + 22 * s;
+        for (int i = 0; i < spectra.Count; i++)
+        {
+            using var pen = Style.Stroke(Style.Series[i % Style.Series.Length], 2.4f * s);
+            var d = dashes[i % dashes.Length];
+            var a = new SKPoint(lx, ly + i * 20 * s - 4 * s);
+            var b = new SKPoint(lx + 30 * s, ly + i * 20 * s - 4 * s);
+            if (d.Length == 0) canvas.DrawLine(a, b, pen); else Style.DashedLine(canvas, a, b, pen, d[0] * s, d[1] * s);
+            Style.Text(canvas, spectra[i].Name + (i == 0 ? " (reference)" : ""), lx + 38 * s, ly + i * 20 * s, 13 * s, Style.Ink);
+        }
+    }
+
     /// <summary>A display colour for a wavelength: the spectrum-locus chromaticity at full brightness, dimmed at the ends by V(λ).</summary>
     /// <param name="nm">Wavelength.</param>
     /// <returns>The colour.</returns>

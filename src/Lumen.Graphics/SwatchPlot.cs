@@ -64,6 +64,55 @@ public static class SwatchPlot
         }
     }
 
+    /// <summary>
+    /// Sample colours under a reference and under each other source, side by side, after white balance on each (CAT16 to
+    /// D65, sRGB): the 14 CIE 13.3 test colour samples and one CIE 224 sample per TM-30 hue bin of the reference.
+    /// </summary>
+    /// <param name="canvas">Canvas.</param>
+    /// <param name="size">Size, pixels.</param>
+    /// <param name="reference">The reference source.</param>
+    /// <param name="referenceFidelity">The reference's CIE 224 result (its hue bins pick one sample per bin), or null for every sixth sample.</param>
+    /// <param name="others">The other sources (one row each).</param>
+    public static void DrawComparison(SKCanvas canvas, SKSize size, Spectrum reference, FidelityResult? referenceFidelity, IReadOnlyList<Spectrum> others)
+    {
+        ArgumentNullException.ThrowIfNull(canvas);
+        ArgumentNullException.ThrowIfNull(reference);
+        ArgumentNullException.ThrowIfNull(others);
+        var sources = new[] { reference }.Concat(others).ToArray();
+        float s = Math.Max(0.5f, Math.Min(size.Width / 1200f, size.Height / (180f + 70f * sources.Length * 2)));
+        Style.Text(canvas, $"Colour samples after white balance — {reference.Name} (reference) and {others.Count} other source(s)", 30 * s, 34 * s, 18 * s, Style.Ink, bold: true);
+        Style.Text(canvas, "Each row: the samples under one source, white-balanced to D65 by CAT16 (D = 1), sRGB display, 2° observer.", 30 * s, 56 * s, 12.5f * s, Style.Muted);
+        var picks = referenceFidelity is { } f
+            ? Enumerable.Range(1, 16).Select(bin => Enumerable.Range(0, 99).Where(i => f.CesBins[i] == bin).DefaultIfEmpty(-1).First()).Where(i => i >= 0).ToArray()
+            : Enumerable.Range(0, 16).Select(i => i * 6).ToArray();
+        var tcs = sources.Select(src => Lumen.Comparison.SampleShift.AdaptedXyz(Resampler.ForCieSums(src), SampleSet.CieTestColorSamples)).ToArray();
+        var ces = sources.Select(src => Lumen.Comparison.SampleShift.AdaptedXyz(Resampler.ForCieSums(src), SampleSet.ColorEvaluationSamples)).ToArray();
+        float nameWidth = 220 * s, left = 30 * s + nameWidth;
+        void Block(string title, float top, IReadOnlyList<Tristimulus>[] colours, int[] indices, Func<int, string> label)
+        {
+            Style.Text(canvas, title, 30 * s, top - 8 * s, 13 * s, Style.Ink, bold: true);
+            float cell = (size.Width - left - 30 * s) / indices.Length;
+            for (int r = 0; r < colours.Length; r++)
+            {
+                float y = top + r * 40 * s;
+                Style.Text(canvas, sources[r].Name + (r == 0 ? " (ref.)" : ""), 30 * s, y + 25 * s, 12 * s, r == 0 ? Style.Ink : Style.Muted, bold: r == 0);
+                for (int k = 0; k < indices.Length; k++)
+                {
+                    var c = colours[r][indices[k]];
+                    var rgb = Srgb.ToRgb8(new Tristimulus(c.X / 100, c.Y / 100, c.Z / 100));
+                    using var p = Style.Fill(new SKColor(rgb.R, rgb.G, rgb.B));
+                    canvas.DrawRect(new SKRect(left + k * cell, y, left + (k + 1) * cell - 3 * s, y + 36 * s), p);
+                }
+            }
+            for (int k = 0; k < indices.Length; k++)
+                Style.Text(canvas, label(indices[k]), left + (k + 0.5f) * cell, top + colours.Length * 40 * s + 14 * s, 11 * s, Style.Muted, SKTextAlign.Center);
+        }
+        float top1 = 90 * s;
+        Block("CIE 13.3 test colour samples (TCS13 = complexion)", top1, tcs, Enumerable.Range(0, 14).ToArray(), i => $"TCS{i + 1}");
+        float top2 = top1 + sources.Length * 40 * s + 60 * s;
+        Block("CIE 224 colour evaluation samples, one per TM-30 hue bin of the reference", top2, ces, picks, i => $"CES{i + 1}");
+    }
+
     private static void Row(SKCanvas canvas, float s, float left, float top, float width, IReadOnlyList<Tristimulus> test, Tristimulus testWhite,
         IReadOnlyList<Tristimulus> reference, Tristimulus referenceWhite, string[] labels)
     {

@@ -37,6 +37,30 @@ internal static class Style
     public static readonly SKColor Neutral = new(0x3b, 0x3f, 0x9a);
     public static readonly SKColor Accent = new(0x8a, 0x2b, 0x6e);
 
+    /// <summary>Colours for several sources drawn together (distinct in hue and lightness; our own choice).</summary>
+    public static readonly SKColor[] Series =
+    [
+        new(0x1f, 0x3a, 0x93), new(0xd9, 0x5f, 0x02), new(0x1b, 0x9e, 0x77), new(0x9c, 0x27, 0xb0),
+        new(0x66, 0x66, 0x00), new(0xe6, 0x00, 0x7a), new(0x00, 0x83, 0x8f), new(0x7a, 0x4a, 0x1f),
+    ];
+
+    /// <summary>Draws marker shape <paramref name="shape"/> (0 circle, 1 square, 2 triangle, 3 diamond, repeating).</summary>
+    public static void Marker(SKCanvas canvas, int shape, float x, float y, float r, SKColor color, float s)
+    {
+        using var fill = Fill(color);
+        using var edge = Stroke(SKColors.White, 1.2f * s);
+        using var path = new SKPath();
+        switch (shape % 4)
+        {
+            case 0: canvas.DrawCircle(x, y, r, fill); canvas.DrawCircle(x, y, r, edge); return;
+            case 1: path.AddRect(new SKRect(x - r, y - r, x + r, y + r)); break;
+            case 2: path.MoveTo(x, y - 1.2f * r); path.LineTo(x + 1.1f * r, y + 0.8f * r); path.LineTo(x - 1.1f * r, y + 0.8f * r); path.Close(); break;
+            default: path.MoveTo(x, y - 1.3f * r); path.LineTo(x + 1.3f * r, y); path.LineTo(x, y + 1.3f * r); path.LineTo(x - 1.3f * r, y); path.Close(); break;
+        }
+        canvas.DrawPath(path, fill);
+        canvas.DrawPath(path, edge);
+    }
+
     public static SKPaint Stroke(SKColor c, float width) =>
         new() { Color = c, StrokeWidth = width, Style = SKPaintStyle.Stroke, IsAntialias = true, StrokeCap = SKStrokeCap.Round };
 

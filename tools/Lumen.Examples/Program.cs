@@ -72,6 +72,34 @@ Directory.CreateDirectory(Path.Combine(dir, "batch"));
 BatchFile.Write(Path.Combine(dir, "batch", "quillfern-dl30-lot-A17.csv"), 240, 17, faults: true);
 Console.WriteLine($"wrote {Path.Combine(dir, "batch", "quillfern-dl30-lot-A17.csv")}");
 
+// 5. Matching sources on set: the Marrowby Civic Hall film night (fictional). A tungsten-like key light, an LED panel fill
+//    and daylight through the foyer window, 1 nm, 360–830 nm, in one file; and invented correction filters.
+Directory.CreateDirectory(Path.Combine(dir, "compare"));
+var grid360 = SyntheticSpectra.Grid(360, 830, 1);
+var key = SyntheticSpectra.WithNoise(SyntheticSpectra.Blackbody(3150, grid360, "key-tungsten-3150K"), 0.001, 31);
+var fill = SyntheticSpectra.WithNoise(SyntheticSpectra.PhosphorLed(Tune(5400, 0.004, 452, 548), grid360, "fill-led-panel"), 0.002, 32);
+var daylightValues = Lumen.Rendition.ReferenceIlluminants.Daylight(5900, 360, 1, grid360.Length);
+var window = SyntheticSpectra.WithNoise(new Spectrum(grid360, daylightValues, SpectralUnit.Relative, "foyer-window-daylight", SpectrumOrigin.Generated("CIE daylight 5900 K")), 0.003, 33);
+WriteColumns(Path.Combine(dir, "compare", "film-night-sources.csv"), [key, fill, window], ',', "relative",
+    "Marrowby Civic Hall (fictional) film night — key light, LED fill panel and window daylight, 1 nm");
+
+// Filters: smooth invented curves. A conversion filter of x MK⁻¹ follows exp(−c2·x·10⁻⁶/λ) (the ratio of two Wien
+// radiators, so it shifts a thermal source by about x mired), scaled to a peak transmittance of 0.92; tint filters dip
+// (or lift) the green. One file is written in percent to show that percent is detected.
+var grid5 = SyntheticSpectra.Grid(360, 830, 5);
+Spectrum Conversion(string name, double mired) =>
+    new(grid5, grid5.Select(w => Math.Exp(-0.014388 * mired / (w * 1e-9) * 1e-6)).Select((t, _) => t).ToArray() is var raw
+        ? raw.Select(t => 0.92 * t / raw.Max()).ToArray() : [], SpectralUnit.Relative, name, SpectrumOrigin.Generated(name));
+Spectrum Tint(string name, double depth) =>
+    new(grid5, grid5.Select(w => 0.9 * (1 - depth * Math.Exp(-Math.Pow((w - 535) / 45.0, 2) / 2))).ToArray(), SpectralUnit.Relative, name, SpectrumOrigin.Generated(name));
+var filterDir = Path.Combine(dir, "compare", "filters");
+Directory.CreateDirectory(filterDir);
+foreach (var f in new[] { Conversion("warm-eighth", 20), Conversion("warm-quarter", 40), Conversion("warm-half", 80), Conversion("warm-full", 160),
+             Conversion("cool-quarter", -30), Conversion("cool-half", -65), Tint("magenta-quarter", 0.12), Tint("magenta-half", 0.24), Tint("green-quarter", -0.10) })
+    WriteColumns(Path.Combine(filterDir, f.Name + ".csv"), [f], ',', "relative", $"Invented correction filter '{f.Name}' (transmittance, 0–1)");
+var pct = Conversion("warm-three-quarter-pct", 120).Scale(100);
+WriteColumns(Path.Combine(filterDir, "warm-three-quarter-pct.csv"), [pct], ',', "relative", "Invented correction filter 'warm-three-quarter-pct' (transmittance in percent, 0–100)");
+
 void WriteColumns(string path, IReadOnlyList<Spectrum> spectra, char delim, string unit, string title, bool decimalComma = false)
 {
     var sb = new StringBuilder();

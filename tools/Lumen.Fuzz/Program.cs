@@ -37,7 +37,7 @@ public static class Program
         report.AppendLine("# Fuzzing record");
         report.AppendLine();
         report.AppendLine(CultureInfo.InvariantCulture, $"Written by `tools/Lumen.Fuzz` on {DateTime.UtcNow:yyyy-MM-dd} (UTC); seed {seed}; {Environment.ProcessorCount} cores; .NET {Environment.Version}.");
-        report.AppendLine(CultureInfo.InvariantCulture, $"Mutations of {seeds.Count} seed files (the examples and a hostile corpus): byte flips, inserted delimiters and control bytes, deleted ranges, duplicated and swapped lines, numbers replaced by extreme values, truncation and splicing. A crash is any exception escaping the reader (or the assessment of every {assessEvery}th input's spectra); a hang is one input taking more than {hangSeconds} s. The targets run in parallel, one per core, so the rates are per core.");
+        report.AppendLine(CultureInfo.InvariantCulture, $"Mutations of {seeds.Count} seed files (the examples and a hostile corpus): byte flips, inserted delimiters and control bytes, deleted ranges, duplicated and swapped lines, numbers replaced by extreme values, truncation and splicing. A crash is any exception escaping the reader (or the assessment of every {assessEvery}th input's spectra); a hang is one input taking more than {hangSeconds} s. The four targets ran in parallel on the cores available, so each rate is per target, not per core.");
         report.AppendLine();
         report.AppendLine("| target | inputs | crashes | hangs | slowest input (ms) | inputs/s | spectra assessed |");
         report.AppendLine("|---|---:|---:|---:|---:|---:|---:|");

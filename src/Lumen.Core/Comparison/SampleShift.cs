@@ -36,11 +36,21 @@ public static class SampleShift
     /// <returns>One L*a*b* per sample, in table order.</returns>
     public static IReadOnlyList<Lab> AdaptedLab(RegularSamples light, SampleSet set)
     {
+        var d65 = D65White.Value;
+        return AdaptedXyz(light, set).Select(x => Cielab.FromXyz(x, d65)).ToArray();
+    }
+
+    /// <summary>XYZ of every sample of a set under a source, white-balanced by CAT16 (D = 1) to CIE D65 with Y = 100.</summary>
+    /// <param name="light">The source.</param>
+    /// <param name="set">The sample set.</param>
+    /// <returns>One XYZ per sample, in table order (the D65 white is Y = 100).</returns>
+    public static IReadOnlyList<Tristimulus> AdaptedXyz(RegularSamples light, SampleSet set)
+    {
         ArgumentNullException.ThrowIfNull(light);
         var (white, samples) = SampleColors.Under(light, set, Observer.Cie1931TwoDegree);
         var w100 = new Tristimulus(100 * white.X, 100 * white.Y, 100 * white.Z);
         var d65 = D65White.Value;
-        return samples.Select(s => Cielab.FromXyz(Cat16.Adapt(new Tristimulus(100 * s.X, 100 * s.Y, 100 * s.Z), w100, d65), d65)).ToArray();
+        return samples.Select(s => Cat16.Adapt(new Tristimulus(100 * s.X, 100 * s.Y, 100 * s.Z), w100, d65)).ToArray();
     }
 
     private static double[] DeltaE(RegularSamples a, RegularSamples b, SampleSet set)
