@@ -43,10 +43,24 @@ public static class Program
                 var type = r.BenchmarkCase.Descriptor.Type;
                 int per = type == typeof(ColorimetryBenchmarks) ? ColorimetryBenchmarks.BatchSize
                     : type == typeof(RenditionBenchmarks) ? RenditionBenchmarks.BatchSize
-                    : type == typeof(BatchBenchmarks) ? BatchBenchmarks.Rows : 1;
+                    : type == typeof(BatchBenchmarks) ? BatchBenchmarks.Rows : 1; // compare: one pair per operation
                 double rate = per / (ns * 1e-9);
                 lines.Add(string.Create(CultureInfo.InvariantCulture,
                     $"| {r.BenchmarkCase.Descriptor.WorkloadMethodDisplayInfo} | {ns / 1000:0.0} µs | {per} | {rate:N0} |"));
+            }
+        }
+        // A filtered run (--filter) keeps the rows of benchmarks it did not run, marked with the date of their own run.
+        if (File.Exists(path))
+        {
+            var fresh = lines.Skip(7).Select(l => l.Split('|')[1].Trim()).ToHashSet(StringComparer.Ordinal);
+            var old = File.ReadAllLines(path);
+            string oldRun = old.FirstOrDefault(l => l.StartsWith("Run: ", StringComparison.Ordinal)) is { } r0 ? r0[5..Math.Min(r0.Length, 25)].TrimEnd(',', ' ') : "an earlier run";
+            foreach (var row in old.Where(l => l.StartsWith("| '", StringComparison.Ordinal) || l.StartsWith("| \"", StringComparison.Ordinal)))
+            {
+                var key = row.Split('|')[1].Trim();
+                if (!fresh.Contains(key) && !key.Contains("(from ", StringComparison.Ordinal))
+                    lines.Add(row.Replace($"| {key} |", $"| {key} (from {oldRun}) |", StringComparison.Ordinal));
+                else if (!fresh.Contains(key)) lines.Add(row);
             }
         }
         File.WriteAllLines(path, lines);

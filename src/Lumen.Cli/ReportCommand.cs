@@ -11,12 +11,15 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
     private readonly InputOptions _inputs = new();
     public Option<string?> Spec { get; } = new("--spec") { Description = "Tolerance spec: verdicts, and the batch layout for more than one spectrum." };
     public Option<string?> Out { get; } = OutputTarget.Option("HTML file.", required: true);
+    public Option<bool> Compare { get; } = new("--compare") { Description = "A comparison report: every source against the reference (the first spectrum, or --reference)." };
+    public Option<string?> Reference { get; } = new("--reference", "-r") { Description = "With --compare: the reference spectrum's name (default: the first)." };
+    public Option<string[]> Filters { get; } = new("--filter") { Description = "With --compare: filter transmittance files or folders to try on each source.", AllowMultipleArgumentsPerToken = true };
 
     public Command Build()
     {
         var cmd = new Command("report", "Write one self-contained HTML report (inline SVG and CSS, no scripts) for a source or a batch.");
         _inputs.AddTo(cmd);
-        cmd.Add(Spec); cmd.Add(Out);
+        cmd.Add(Spec); cmd.Add(Out); cmd.Add(Compare); cmd.Add(Reference); cmd.Add(Filters);
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -32,7 +35,23 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
         Parallel.For(0, records.Count, i => items[i] = RecordOutcome.Of(records[i], AssessmentOptions.Default, spec));
         foreach (var it in items) CommonOptions.ReportError(stderr, it.Error);
         string html;
-        if (spec is not null && records.Count > 1)
+        if (parse.GetValue(Compare))
+        {
+            var ok = items.Where(i => i.Assessment is not null).ToList();
+            if (ok.Count < 2) { stderr.WriteLine("lumen report: --compare needs a reference and at least one other spectrum."); return ExitCodes.UsageError; }
+            string? refName = parse.GetValue(Reference);
+            var reference = refName is null ? ok[0] : ok.FirstOrDefault(i => i.Record.Name == refName);
+            if (reference is null) { stderr.WriteLine($"lumen report: no spectrum named '{refName}'."); return ExitCodes.UsageError; }
+            var filters = new List<Lumen.Spectra.Spectrum>();
+            foreach (var f in Lumen.Formats.SpectrumFiles.Expand(parse.GetValue(Filters) ?? []))
+                foreach (var r in Lumen.Formats.SpectrumFiles.Read(f.Path, Lumen.Spectra.SpectralUnit.Relative, stdin))
+                    if (r is SpectrumRecord fs) filters.Add(fs.Spectrum); else if (r is ErrorRecord fe) CommonOptions.ReportError(stderr, fe.Error);
+            var refSpectrum = ((SpectrumRecord)reference.Record).Spectrum;
+            var others = ok.Where(i => !ReferenceEquals(i, reference)).Select(i => ((SpectrumRecord)i.Record).Spectrum).ToList();
+            var comparisons = others.Select(o => Lumen.Comparison.SourceComparer.Compare(refSpectrum, o, filters)).ToList();
+            html = HtmlReport.Comparison(comparisons, refSpectrum, others, reference.Assessment!.Fidelity);
+        }
+        else if (spec is not null && records.Count > 1)
         {
             var builder = new BatchSummaryBuilder(spec);
             foreach (var it in items) builder.Add(it);

@@ -1,3 +1,5 @@
+using Lumen.Rendition;
+using Lumen.Spectra;
 using System.Globalization;
 using System.Net;
 using System.Text;
@@ -256,6 +258,65 @@ public static class HtmlReport
             k++;
             if (it.Assessment is { } a) Detail(sb, a, it.Record, spec, k);
         }
+        sb.Append("</main></body></html>");
+        return sb.ToString();
+    }
+
+    /// <summary>
+    /// A comparison report: each source against the reference — distance, correction, filters, object-colour shift and
+    /// SSI — with the labelled chromaticity diagram, the equal-luminance spectrum overlay and the sample swatches.
+    /// </summary>
+    /// <param name="comparisons">One comparison per other source, in input order (all against the same reference).</param>
+    /// <param name="reference">The reference spectrum.</param>
+    /// <param name="others">The other spectra, in the order of <paramref name="comparisons"/>.</param>
+    /// <param name="referenceFidelity">The reference's CIE 224 result (picks the swatch samples), or null.</param>
+    /// <returns>HTML (self-contained, no scripts; every name escaped).</returns>
+    public static string Comparison(IReadOnlyList<Lumen.Comparison.SourceComparison> comparisons, Spectrum reference, IReadOnlyList<Spectrum> others, FidelityResult? referenceFidelity)
+    {
+        ArgumentNullException.ThrowIfNull(comparisons);
+        ArgumentNullException.ThrowIfNull(reference);
+        ArgumentNullException.ThrowIfNull(others);
+        var sb = new StringBuilder();
+        Head(sb, "Lumen comparison report");
+        sb.Append("<h1>Source comparison</h1><p class=\"muted\">Reference: ").Append(E(reference.Name)).Append(". Lumen: CIE 1976 u′v′, CCT and mired, CAT16 + CIEDE2000 on the CIE 224 samples, Academy Spectral Similarity Index.</p>");
+        Cautions(sb, false);
+        if (comparisons.Count > 0)
+        {
+            var r = comparisons[0].Reference;
+            sb.Append(Inv, $"<p>Reference <b>{E(r.Name)}</b>: CCT {F(r.Cct.CctKelvin, "0")} K, Duv {F(r.Cct.Duv, "+0.0000;-0.0000;0.0000")}, u′v′ ({F(r.Chromaticity2Degree.UPrime, "0.0000")}, {F(r.Chromaticity2Degree.VPrime, "0.0000")}).</p>");
+        }
+        sb.Append("<h2>Summary</h2><table id=\"comparison\"><tr><th>source</th><th>CCT (K)</th><th>Duv</th><th>Δu′v′</th><th>correction (MK⁻¹)</th><th>tint (Duv)</th><th>ΔE00 mean</th><th>ΔE00 max</th><th>skin ΔE00 (TCS13)</th><th>SSI</th></tr>");
+        foreach (var c in comparisons)
+            sb.Append(Inv, $"<tr><td class=\"t\">{E(c.Source.Name)}</td><td>{F(c.Source.Cct.CctKelvin, "0")}</td><td>{F(c.Source.Cct.Duv, "+0.0000;-0.0000;0.0000")}</td><td>{F(c.DeltaUPrimeVPrime, "0.0000")}</td><td>{F(c.Correction.MiredShift, "+0;-0;0")}</td><td>{F(c.Correction.DuvShift, "+0.0000;-0.0000;0.0000")}</td><td>{F(c.SampleShift?.MeanDeltaE00, "0.00")}</td><td>{F(c.SampleShift?.MaxDeltaE00, "0.00")}</td><td>{F(c.SampleShift?.Tcs13DeltaE00, "0.00")}</td><td>{F(c.Ssi.Value, "0")}</td></tr>");
+        sb.Append("</table><p class=\"muted\">Correction &gt; 0: warm the source; &lt; 0: cool it. Tint &gt; 0: add green; &lt; 0: add magenta. ΔE00: object colours after white balance on each source (CAT16 to D65). SSI: 100 = the reference's spectral shape.</p>");
+        foreach (var c in comparisons)
+        {
+            sb.Append("<h3>").Append(E(c.Source.Name)).Append("</h3><p>").Append(E(c.Correction.Description)).Append(".</p>");
+            foreach (var w in c.Warnings) sb.Append("<div class=\"warn\">").Append(E(w)).Append("</div>");
+            if (c.Filters.Count > 0)
+            {
+                sb.Append("<table><tr><th>filter (or stack)</th><th>residual Δu′v′</th><th>CCT (K)</th><th>Duv</th><th>shift (MK⁻¹)</th><th>transmission</th></tr>");
+                foreach (var f in c.Filters.Take(8))
+                    sb.Append(Inv, $"<tr><td class=\"t\">{E(f.Name)}{(f.Percent ? " (read as %)" : "")}</td><td>{F(f.ResidualDeltaUPrimeVPrime, "0.0000")}</td><td>{F(f.CctKelvin, "0")}</td><td>{F(f.Duv, "+0.0000;-0.0000;0.0000")}</td><td>{F(f.MiredShift, "+0;-0;0")}</td><td>{F(f.Transmission * 100, "0")} %</td></tr>");
+                sb.Append("</table>");
+            }
+            if (c.SampleShift is { } s2 && s2.Worst.Count > 0)
+                sb.Append("<p class=\"muted\">Samples that shift most: ").Append(E(string.Join(", ", s2.Worst.Select(p => string.Create(Inv, $"CES{p.Sample} ({p.DeltaE00:0.0})"))))).Append("</p>");
+        }
+        var all = new[] { reference }.Concat(others).ToList();
+        sb.Append("<h2>Chromaticity</h2>");
+        var pts = new List<DiagramPoint> { new(reference.Name, comparisons.Count > 0 ? comparisons[0].Reference.Chromaticity2Degree : default, PointStatus.None) };
+        pts.AddRange(comparisons.Select(c => new DiagramPoint(c.Source.Name, c.Source.Chromaticity2Degree, PointStatus.None)));
+        var options = new DiagramOptions(DiagramSpace.UPrimeVPrime, pts, null, "Sources against the reference (CIE 1976 u′v′)")
+        {
+            DistinctSources = true,
+            Arrows = comparisons.Select(c => (c.Source.Chromaticity2Degree, c.Reference.Chromaticity2Degree)).ToList(),
+        };
+        sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, options), "locus", "chromaticity diagram of the sources"));
+        sb.Append("<h2>Spectra</h2>");
+        sb.Append(InlineSvg(1200, 800, (cv, z) => SpectrumPlot.DrawMany(cv, z, all), "spectra", "spectra at equal luminance"));
+        sb.Append("<h2>Colour samples after white balance</h2>");
+        sb.Append(InlineSvg(1200, Math.Clamp(260 + 80 * all.Count, 400, 2000), (cv, z) => SwatchPlot.DrawComparison(cv, z, reference, referenceFidelity, others), "swatches", "sample colours under each source"));
         sb.Append("</main></body></html>");
         return sb.ToString();
     }

@@ -59,6 +59,44 @@ public class CommandTests
         finally { File.Delete(path); }
     }
 
+    [Theory]
+    [InlineData("locus")]
+    [InlineData("spectrum")]
+    [InlineData("swatch")]
+    public void Plot_compare_draws_every_source(string kind)
+    {
+        var path = Path.Combine(Path.GetTempPath(), $"lumen-compare-{Guid.NewGuid():N}.svg");
+        try
+        {
+            var (code, _, err) = Run("plot", kind, Ex("compare/film-night-sources.csv"), "--compare", "-o", path);
+            Assert.Equal(0, code);
+            Assert.Equal("", err);
+            var svg = File.ReadAllText(path);
+            XDocument.Parse(svg);
+            foreach (var name in new[] { "key-tungsten-3150K", "fill-led-panel", "foyer-window-daylight" }) Assert.Contains(name, svg, StringComparison.Ordinal);
+        }
+        finally { File.Delete(path); }
+    }
+
+    [Fact]
+    public void Compare_report_has_the_table_the_plots_and_escapes_names()
+    {
+        var dir = Path.Combine(Path.GetTempPath(), $"lumen-cmp-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(dir);
+        try
+        {
+            var input = Path.Combine(dir, "s.csv");
+            File.WriteAllText(input, File.ReadAllText(Ex("compare/film-night-sources.csv")).Replace("fill-led-panel", "<b>fill</b>", StringComparison.Ordinal));
+            var html = Path.Combine(dir, "r.html");
+            Assert.Equal(0, Run("report", input, "--compare", "--filter", Ex("compare/filters"), "-o", html).Code);
+            var text = File.ReadAllText(html);
+            foreach (var id in new[] { "id=\"comparison\"", "id=\"locus\"", "id=\"spectra\"", "id=\"swatches\"", "warm-full" }) Assert.Contains(id, text, StringComparison.Ordinal);
+            Assert.DoesNotContain("<b>fill</b>", text, StringComparison.Ordinal);
+            Assert.Contains("&lt;b&gt;fill&lt;/b&gt;", text, StringComparison.Ordinal);
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+
     [BrowserFact]
     public void Report_renders_in_a_headless_browser_with_the_key_elements_visible()
     {

@@ -76,6 +76,13 @@ public sealed class CieTable
     internal CieTable SpragueToOneNm()
     {
         if (StepNm == 1) return this;
+        return LazyInitializer.EnsureInitialized(ref _oneNm, BuildOneNm);
+    }
+
+    private CieTable? _oneNm; // the 1 nm Sprague interpolation, built once per table
+
+    private CieTable BuildOneNm()
+    {
         var dict = new Dictionary<string, double[]>(StringComparer.Ordinal);
         foreach (var c in ColumnNames)
             dict[c] = Lumen.Spectra.Resampler.SpragueToOneNm(StartNm, StepNm, _columns[c]).Values;
