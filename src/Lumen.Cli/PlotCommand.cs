@@ -86,12 +86,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
                 draw = (c, z) => VectorGraphic.Draw(c, z, fidelity, a.Name);
                 break;
         }
-        string? failure = OutputTarget.IsStdout(outPath)
-            ? OutputTarget.WriteText(outPath, stdout, t => t.Write(Render.Svg(w, h, draw)))
-            : svg ? OutputTarget.WriteBytes(outPath, new UTF8Encoding(false).GetBytes(Render.Svg(w, h, draw)))
-            : OutputTarget.WriteBytes(outPath, Render.Png(w, h, draw));
-        if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
-        if (!OutputTarget.IsStdout(outPath)) stdout.WriteLine($"wrote {outPath}");
+        if (WriteImage(outPath, svg, w, h, draw) is { } failure) return CommonOptions.OutputFailed(stderr, failure);
         return items.Any(i => i.Error is not null) ? ExitCodes.InputErrors : ExitCodes.Success;
     }
 
@@ -127,13 +122,19 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
             default:
                 return Fail("--compare draws locus, spectrum or swatch; the vector graphic shows one source at a time.");
         }
+        if (WriteImage(outPath, svg, w, h, draw) is { } failure) return CommonOptions.OutputFailed(stderr, failure);
+        return anyError ? ExitCodes.InputErrors : ExitCodes.Success;
+    }
+
+    /// <summary>Renders and writes the image (SVG on standard output for '-'); null on success, else the reason.</summary>
+    private string? WriteImage(string outPath, bool svg, int w, int h, Action<SkiaSharp.SKCanvas, SkiaSharp.SKSize> draw)
+    {
         string? failure = OutputTarget.IsStdout(outPath)
             ? OutputTarget.WriteText(outPath, stdout, t => t.Write(Render.Svg(w, h, draw)))
             : svg ? OutputTarget.WriteBytes(outPath, new UTF8Encoding(false).GetBytes(Render.Svg(w, h, draw)))
             : OutputTarget.WriteBytes(outPath, Render.Png(w, h, draw));
-        if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
-        if (!OutputTarget.IsStdout(outPath)) stdout.WriteLine($"wrote {outPath}");
-        return anyError ? ExitCodes.InputErrors : ExitCodes.Success;
+        if (failure is null && !OutputTarget.IsStdout(outPath)) stdout.WriteLine($"wrote {outPath}");
+        return failure;
     }
 
     private int Fail(string message)

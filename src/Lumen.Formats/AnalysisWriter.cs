@@ -21,27 +21,11 @@ public static class AnalysisWriter
     /// <param name="detail">With text: a block of every result per spectrum after the table.</param>
     public static void Write(IReadOnlyList<RecordOutcome> items, OutputFormat format, TextWriter output, bool detail = false)
     {
-        ArgumentNullException.ThrowIfNull(items);
-        ArgumentNullException.ThrowIfNull(output);
-        switch (format)
+        FormattedOutput.Write(items, format, output, WriteRecord, AnalysisColumns.Csv, (all, o) =>
         {
-            case OutputFormat.Json:
-                JsonOutput.Write(output, w =>
-                {
-                    w.WriteStartArray();
-                    foreach (var item in items) WriteRecord(w, item);
-                    w.WriteEndArray();
-                });
-                break;
-            case OutputFormat.Csv:
-                AnalysisColumns.Csv.WriteCsvHeader(output);
-                foreach (var item in items) AnalysisColumns.Csv.WriteCsvRow(output, item);
-                break;
-            default:
-                WriteText(items, output);
-                if (detail) WriteDetail(items, output);
-                break;
-        }
+            WriteText(all, o);
+            if (detail) WriteDetail(all, o);
+        });
     }
 
     /// <summary>Writes the compact table, then the notes on observers and methods, then each spectrum's warnings.</summary>

@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Text.Json;
 using Lumen.Conformance;
 using Lumen.BatchStatistics;
 

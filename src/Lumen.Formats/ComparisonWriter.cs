@@ -58,26 +58,7 @@ public static class ComparisonWriter
     /// <param name="output">Destination.</param>
     public static void Write(IReadOnlyList<SourceComparison> items, OutputFormat format, TextWriter output)
     {
-        ArgumentNullException.ThrowIfNull(items);
-        ArgumentNullException.ThrowIfNull(output);
-        switch (format)
-        {
-            case OutputFormat.Json:
-                JsonOutput.Write(output, w =>
-                {
-                    w.WriteStartArray();
-                    foreach (var c in items) WriteJson(w, c);
-                    w.WriteEndArray();
-                });
-                break;
-            case OutputFormat.Csv:
-                Csv.WriteCsvHeader(output);
-                foreach (var c in items) Csv.WriteCsvRow(output, c);
-                break;
-            default:
-                WriteText(items, output);
-                break;
-        }
+        FormattedOutput.Write(items, format, output, WriteJson, Csv, WriteText);
     }
 
     private static void WriteText(IReadOnlyList<SourceComparison> items, TextWriter output)

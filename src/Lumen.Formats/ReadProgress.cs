@@ -1,5 +1,3 @@
-using Lumen.Spectra;
-
 namespace Lumen.Formats;
 
 /// <summary>Bytes of input consumed so far (for progress and ETA); updated by the reading thread, read by others.</summary>

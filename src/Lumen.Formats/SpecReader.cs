@@ -1,5 +1,4 @@
 using Lumen.Analysis;
-using System.Text;
 using System.Text.Json;
 using Lumen.Conformance;
 

@@ -1,5 +1,3 @@
-using Lumen.Spectra;
-
 namespace Lumen.Formats;
 
 /// <summary>Layout of a delimited spectrum file.</summary>

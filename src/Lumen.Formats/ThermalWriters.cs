@@ -41,54 +41,45 @@ public static class ThermalWriters
     {
         ArgumentNullException.ThrowIfNull(items);
         ArgumentNullException.ThrowIfNull(output);
-        switch (format)
+        FormattedOutput.Write(items, format, output, WriteFitJson, FitColumns, WriteFitText);
+    }
+
+    private static void WriteFitJson(System.Text.Json.Utf8JsonWriter w, FitOutcome item)
+    {
+        var (rec, fit, error) = item;
+        w.WriteStartObject();
+        w.WriteString("name", rec.Name);
+        w.WriteString("source", rec.Source);
+        w.WriteNumber("column", rec.Column);
+        if (fit is null) w.Error(error!);
+        else
         {
-            case OutputFormat.Json:
-                JsonOutput.Write(output, w =>
-                {
-                    w.WriteStartArray();
-                    foreach (var (rec, fit, error) in items)
-                    {
-                        w.WriteStartObject();
-                        w.WriteString("name", rec.Name);
-                        w.WriteString("source", rec.Source);
-                        w.WriteNumber("column", rec.Column);
-                        if (fit is null) w.Error(error!);
-                        else
-                        {
-                            w.NumberOrNull("temperatureK", fit.TemperatureKelvin);
-                            w.NumberOrNull("temperatureLowK", fit.TemperatureLowKelvin);
-                            w.NumberOrNull("temperatureHighK", fit.TemperatureHighKelvin);
-                            w.NumberOrNull("residual", fit.RelativeResidual);
-                            w.WriteBoolean("thermal", fit.Thermal);
-                            w.NumberOrNull("scale", fit.Scale);
-                            w.NumberOrNull("emissivitySlopePer100Nm", fit.EmissivitySlopePer100Nm);
-                            w.WriteStartObject("bandNm"); w.NumberOrNull("first", fit.BandFirstNm); w.NumberOrNull("last", fit.BandLastNm); w.WriteEndObject();
-                            w.WriteString("message", fit.Message);
-                            w.StringArray("warnings", fit.Warnings);
-                        }
-                        w.WriteEndObject();
-                    }
-                    w.WriteEndArray();
-                });
-                break;
-            case OutputFormat.Csv:
-                FitColumns.WriteCsvHeader(output);
-                foreach (var i in items) FitColumns.WriteCsvRow(output, i);
-                break;
-            default:
-                foreach (var (rec, fit, error) in items)
-                {
-                    if (fit is null) { output.WriteLine($"{rec.Name}: ERROR {error}"); continue; }
-                    if (!fit.HasSignal) { output.WriteLine($"{rec.Name}: {fit.Message}"); continue; }
-                    string interval = double.IsFinite(fit.TemperatureLowKelvin) && double.IsFinite(fit.TemperatureHighKelvin)
-                        ? string.Create(Inv, $"95 % interval {fit.TemperatureLowKelvin:0}–{fit.TemperatureHighKelvin:0} K")
-                        : "95 % interval not available";
-                    output.WriteLine(string.Create(Inv, $"{rec.Name}: {fit.TemperatureKelvin:0} K ({interval}), residual {fit.RelativeResidual * 100:0.0} % — {fit.Message}"));
-                }
-                output.WriteLine(GreyBodyFitResult.Caution);
-                break;
+            w.NumberOrNull("temperatureK", fit.TemperatureKelvin);
+            w.NumberOrNull("temperatureLowK", fit.TemperatureLowKelvin);
+            w.NumberOrNull("temperatureHighK", fit.TemperatureHighKelvin);
+            w.NumberOrNull("residual", fit.RelativeResidual);
+            w.WriteBoolean("thermal", fit.Thermal);
+            w.NumberOrNull("scale", fit.Scale);
+            w.NumberOrNull("emissivitySlopePer100Nm", fit.EmissivitySlopePer100Nm);
+            w.WriteStartObject("bandNm"); w.NumberOrNull("first", fit.BandFirstNm); w.NumberOrNull("last", fit.BandLastNm); w.WriteEndObject();
+            w.WriteString("message", fit.Message);
+            w.StringArray("warnings", fit.Warnings);
         }
+        w.WriteEndObject();
+    }
+
+    private static void WriteFitText(IReadOnlyList<FitOutcome> items, TextWriter output)
+    {
+        foreach (var (rec, fit, error) in items)
+        {
+            if (fit is null) { output.WriteLine($"{rec.Name}: ERROR {error}"); continue; }
+            if (!fit.HasSignal) { output.WriteLine($"{rec.Name}: {fit.Message}"); continue; }
+            string interval = double.IsFinite(fit.TemperatureLowKelvin) && double.IsFinite(fit.TemperatureHighKelvin)
+                ? string.Create(Inv, $"95 % interval {fit.TemperatureLowKelvin:0}–{fit.TemperatureHighKelvin:0} K")
+                : "95 % interval not available";
+            output.WriteLine(string.Create(Inv, $"{rec.Name}: {fit.TemperatureKelvin:0} K ({interval}), residual {fit.RelativeResidual * 100:0.0} % — {fit.Message}"));
+        }
+        output.WriteLine(GreyBodyFitResult.Caution);
     }
 
     /// <summary>Writes a blackbody report as text or JSON.</summary>

@@ -1,8 +1,5 @@
-using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Conformance;
-using Lumen.Temperature;
-using SkiaSharp;
 
 namespace Lumen.Graphics;
 

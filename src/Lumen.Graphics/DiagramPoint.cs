@@ -1,8 +1,4 @@
-using Lumen.Cie;
 using Lumen.Colorimetry;
-using Lumen.Conformance;
-using Lumen.Temperature;
-using SkiaSharp;
 
 namespace Lumen.Graphics;
 

@@ -1,9 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Conformance;
-using Lumen.Temperature;
-using SkiaSharp;
-
 namespace Lumen.Graphics;
 
 /// <summary>The chromaticity diagram used for plotting.</summary>

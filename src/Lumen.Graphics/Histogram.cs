@@ -1,10 +1,3 @@
-using System.Globalization;
-using System.Net;
-using System.Text;
-using Lumen.Conformance;
-using Lumen.Graphics;
-using Lumen.BatchStatistics;
-
 namespace Lumen.Graphics;
 
 /// <summary>A simple histogram.</summary>

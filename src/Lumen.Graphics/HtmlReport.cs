@@ -5,7 +5,6 @@ using System.Net;
 using System.Text;
 using Lumen.Conformance;
 using Lumen.Analysis;
-using Lumen.Graphics;
 using Lumen.BatchStatistics;
 
 namespace Lumen.Graphics;

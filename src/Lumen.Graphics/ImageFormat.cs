@@ -1,6 +1,3 @@
-using System.Reflection;
-using SkiaSharp;
-
 namespace Lumen.Graphics;
 
 /// <summary>Image formats Lumen writes.</summary>

@@ -1,4 +1,3 @@
-using System.Reflection;
 using SkiaSharp;
 
 namespace Lumen.Graphics;

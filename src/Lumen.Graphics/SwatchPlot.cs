@@ -1,4 +1,3 @@
-using System.Globalization;
 using Lumen.Analysis;
 using Lumen.Cie;
 using Lumen.Colorimetry;

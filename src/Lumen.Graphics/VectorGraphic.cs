@@ -2,7 +2,6 @@ using System.Globalization;
 using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Rendition;
-using Lumen.Spectra;
 using SkiaSharp;
 
 namespace Lumen.Graphics;

@@ -170,4 +170,25 @@ public class ComparisonTests
         Assert.True(pb);
         Assert.Equal(a.ValueAt(550), b.ValueAt(550), 9);
     }
+
+    [Fact]
+    public void Weak_comparisons_are_flagged()
+    {
+        var grid = WavelengthGrid.Regular(400, 700, 5);
+        var narrow = new Spectrum(grid, grid.Select(w => Math.Exp(-Math.Pow((w - 520) / 15.0, 2))).ToArray(), SpectralUnit.Relative, "green LED", SpectrumOrigin.Generated("t"));
+        var c = SourceComparer.Compare(CieTables.IlluminantD65.ToSpectrum("D65"), narrow, []);
+        Assert.Contains(c.Warnings, w => w.Contains("|Duv| > 0.05", StringComparison.Ordinal));
+        Assert.Contains(c.Warnings, w => w.Contains("not all of 375–780 nm", StringComparison.Ordinal));
+        Assert.Empty(SourceComparer.Compare(CieTables.IlluminantD65.ToSpectrum("D65"), CieTables.IlluminantA.ToSpectrum("A"), []).Warnings);
+    }
+
+    [Theory]
+    [InlineData(45, 0.002, "needs about +45 MK⁻¹ of warming and a slight green shift")]
+    [InlineData(-120, -0.004, "needs about -120 MK⁻¹ of cooling and a moderate magenta shift")]
+    [InlineData(0.2, 0.0001, "needs no colour-temperature change and no green/magenta shift")]
+    public void The_correction_reads_as_plain_words(double mired, double duv, string expected)
+    {
+        // Wording of our own (compare.md §1): slight below 0.003 Duv, moderate to 0.006, strong above.
+        Assert.Equal(expected, SourceComparer.Describe(mired, duv));
+    }
 }

@@ -1,4 +1,3 @@
-using Lumen.Blackbody;
 using Lumen.Cie;
 using Lumen.Colorimetry;
 using Lumen.Descriptors;

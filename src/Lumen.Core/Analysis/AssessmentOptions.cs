@@ -1,10 +1,4 @@
-using Lumen.Blackbody;
 using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Descriptors;
-using Lumen.Photometry;
-using Lumen.Rendition;
-using Lumen.Spectra;
 using Lumen.Temperature;
 
 namespace Lumen.Analysis;

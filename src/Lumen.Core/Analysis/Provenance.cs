@@ -1,12 +1,3 @@
-using Lumen.Blackbody;
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Descriptors;
-using Lumen.Photometry;
-using Lumen.Rendition;
-using Lumen.Spectra;
-using Lumen.Temperature;
-
 namespace Lumen.Analysis;
 
 /// <summary>How a result was obtained: methods, standards, constants and the data range used.</summary>

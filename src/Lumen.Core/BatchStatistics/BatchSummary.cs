@@ -1,5 +1,3 @@
-using Lumen.Colorimetry;
-
 namespace Lumen.BatchStatistics;
 
 /// <summary>Summary of a batch.</summary>

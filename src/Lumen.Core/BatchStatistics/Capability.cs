@@ -1,5 +1,3 @@
-using Lumen.Colorimetry;
-
 namespace Lumen.BatchStatistics;
 
 /// <summary>Process capability of one limited field.</summary>

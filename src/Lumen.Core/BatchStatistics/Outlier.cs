@@ -1,5 +1,3 @@
-using Lumen.Colorimetry;
-
 namespace Lumen.BatchStatistics;
 
 /// <summary>A unit flagged as a chromaticity outlier.</summary>

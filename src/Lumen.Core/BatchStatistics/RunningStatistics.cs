@@ -1,5 +1,3 @@
-using Lumen.Colorimetry;
-
 namespace Lumen.BatchStatistics;
 
 /// <summary>Running mean, standard deviation, minimum and maximum (Welford's algorithm).</summary>

@@ -1,5 +1,3 @@
-using Lumen.Cie;
-
 namespace Lumen.Blackbody;
 
 /// <summary>A point of the Planckian locus in the CIE 1960 UCS with its derivatives with respect to mired.</summary>

@@ -1,5 +1,3 @@
-using Lumen.Spectra;
-
 namespace Lumen.Blackbody;
 
 /// <summary>Approximations to Planck's law offered for comparison.</summary>

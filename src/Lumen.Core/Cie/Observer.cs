@@ -1,6 +1,3 @@
-using System.Collections.Concurrent;
-using System.Reflection;
-
 namespace Lumen.Cie;
 
 /// <summary>The CIE standard colorimetric observers.</summary>

@@ -1,5 +1,4 @@
 using System.Collections.Concurrent;
-using System.Numerics.Tensors;
 using Lumen.Cie;
 using Lumen.Spectra;
 

@@ -1,6 +1,3 @@
-using Lumen.Colorimetry;
-using Lumen.Temperature;
-
 namespace Lumen.Conformance;
 
 /// <summary>Editions of ANSI C78.377 whose quadrangles Lumen can build.</summary>

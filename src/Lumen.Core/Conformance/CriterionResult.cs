@@ -1,6 +1,3 @@
-using Lumen.Colorimetry;
-using Lumen.Temperature;
-
 namespace Lumen.Conformance;
 
 /// <summary>One criterion's outcome.</summary>

@@ -1,5 +1,4 @@
 using Lumen.Colorimetry;
-using Lumen.Temperature;
 
 namespace Lumen.Conformance;
 

@@ -1,6 +1,3 @@
-using Lumen.Colorimetry;
-using Lumen.Temperature;
-
 namespace Lumen.Conformance;
 
 /// <summary>How a chromaticity target is given.</summary>

@@ -1,6 +1,3 @@
-using Lumen.Colorimetry;
-using Lumen.Temperature;
-
 namespace Lumen.Conformance;
 
 /// <summary>Kinds of chromaticity tolerance.</summary>

@@ -1,6 +1,3 @@
-using Lumen.Colorimetry;
-using Lumen.Temperature;
-
 namespace Lumen.Conformance;
 
 /// <summary>A product's tolerance specification, written once by a QA engineer.</summary>

@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Descriptors;
 
 /// <summary>Dominant (or complementary) wavelength and purity of a chromaticity.</summary>

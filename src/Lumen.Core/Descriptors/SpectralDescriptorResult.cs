@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Descriptors;
 
 /// <summary>Shape descriptors of a spectrum.</summary>

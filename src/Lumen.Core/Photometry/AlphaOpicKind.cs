@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Photometry;
 
 /// <summary>The five CIE S 026 photoreceptor classes, melanopic first.</summary>

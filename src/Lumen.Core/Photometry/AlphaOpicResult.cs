@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Photometry;
 
 /// <summary>One α-opic result.</summary>

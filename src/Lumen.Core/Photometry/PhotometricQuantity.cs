@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Photometry;
 
 /// <summary>The photometric quantity that an absolute spectral unit yields.</summary>

@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Photometry;
 
 /// <summary>Photometric and radiometric results of one spectrum.</summary>

@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Rendition;
 
 /// <summary>CIE 13.3 colour rendering result.</summary>

@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Rendition;
 
 /// <summary>CIE 224:2017 and IES TM-30-20 results.</summary>

@@ -1,7 +1,3 @@
-using Lumen.Cie;
-using Lumen.Colorimetry;
-using Lumen.Spectra;
-
 namespace Lumen.Rendition;
 
 /// <summary>IES TM-30 values of one of the 16 hue-angle bins.</summary>

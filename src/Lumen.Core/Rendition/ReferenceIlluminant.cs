@@ -1,5 +1,3 @@
-using Lumen.Blackbody;
-using Lumen.Cie;
 using Lumen.Spectra;
 
 namespace Lumen.Rendition;

@@ -1,7 +1,3 @@
-using Lumen.Blackbody;
-using Lumen.Cie;
-using Lumen.Spectra;
-
 namespace Lumen.Rendition;
 
 /// <summary>Which kind of reference illuminant a rendition method built.</summary>

@@ -1,5 +1,4 @@
 using Lumen.Blackbody;
-using Lumen.Colorimetry;
 
 namespace Lumen.Temperature;
 
