@@ -100,6 +100,20 @@ foreach (var f in new[] { Conversion("warm-eighth", 20), Conversion("warm-quarte
 var pct = Conversion("warm-three-quarter-pct", 120).Scale(100);
 WriteColumns(Path.Combine(filterDir, "warm-three-quarter-pct.csv"), [pct], ',', "relative", "Invented correction filter 'warm-three-quarter-pct' (transmittance in percent, 0–100)");
 
+// 6. A five-channel tunable wash for the hall's stage (fictional: Quillfern "TW-5"): red, green, blue, amber and a broad
+//    phosphor lime channel, each measured at full output, 1 nm, relative (same scale for all channels).
+Directory.CreateDirectory(Path.Combine(dir, "mix"));
+Spectrum Emitter(string name, double peak, double width, double height, int seed) =>
+    SyntheticSpectra.WithNoise(new Spectrum(grid1, grid1.Select(w => height * Math.Exp(-Math.Pow((w - peak) / width, 2) / 2)).ToArray(), SpectralUnit.Relative, name, SpectrumOrigin.Generated(name)), 0.002, seed);
+var limeModel = new PhosphorLedModel(450, 18, 0.08, 552, 95, 610, 70, 0.25);
+var tw5 = new[]
+{
+    Emitter("red", 628, 9.5, 0.95, 41), Emitter("green", 522, 15, 0.75, 42), Emitter("blue", 452, 9, 1.0, 43),
+    Emitter("amber", 593, 7.5, 0.55, 44), SyntheticSpectra.WithNoise(SyntheticSpectra.PhosphorLed(limeModel, grid1, "lime").Scale(0.9), 0.002, 45),
+};
+WriteColumns(Path.Combine(dir, "mix", "quillfern-tw5-channels.csv"), tw5, ',', "relative",
+    "Quillfern Lighting Works (fictional) TW-5 tunable wash — five channels measured at full output, 1 nm");
+
 void WriteColumns(string path, IReadOnlyList<Spectrum> spectra, char delim, string unit, string title, bool decimalComma = false)
 {
     var sb = new StringBuilder();
