@@ -105,6 +105,9 @@ public static class MixWriter
         w.WriteStartObject("levels");
         for (int i = 0; i < r.Channels.Count; i++) w.NumberOrNull(r.Channels[i], r.Levels[i]);
         w.WriteEndObject();
+        w.WriteStartObject("levelsPercent");
+        for (int i = 0; i < r.Channels.Count; i++) w.NumberOrNull(r.Channels[i], Math.Round(100 * r.Levels[i], 2));
+        w.WriteEndObject();
         w.WriteStartObject("chromaticity");
         w.NumberOrNull("x", r.Chromaticity.SmallX); w.NumberOrNull("y", r.Chromaticity.SmallY);
         w.NumberOrNull("uPrime", r.Chromaticity.UPrime); w.NumberOrNull("vPrime", r.Chromaticity.VPrime);
