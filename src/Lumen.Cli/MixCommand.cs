@@ -120,6 +120,8 @@ internal sealed class MixCommand(TextReader stdin, TextWriter stdout, TextWriter
         }
         if (objective == MixObjective.MaximizeSsi && match is null) return Fail("--maximize ssi needs --match.");
 
+        if (channels.Count(c => Assessor.Assess(c, new AssessmentOptions(Metrics: MetricGroups.Colorimetry)).Chromaticity2Degree.IsDefined) == 0)
+            return Fail("no channel has visible power.");
         var results = targetsList.Select(target => ChannelMixer.Solve(channels, target, objective, tolerance, cap, match)).ToList();
         var format = CommonOptions.ToOutputFormat(parse.GetValue(Format));
         if (OutputTarget.WriteText(outPath, stdout, w => MixWriter.Write(results, format, w, sweep: range is not null)) is { } failure)

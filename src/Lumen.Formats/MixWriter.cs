@@ -72,14 +72,15 @@ public static class MixWriter
         else
         {
             var r = items[0];
+            static string N(double v, string f) => double.IsFinite(v) ? v.ToString(f, Inv) : "—";
             o.WriteLine(string.Create(Inv, $"Target: x {r.Target.SmallX:0.0000}, y {r.Target.SmallY:0.0000} — {(r.Reachable ? "reachable" : "NOT reachable with these channels")}"));
             o.WriteLine();
             for (int i = 0; i < r.Channels.Count; i++)
                 o.WriteLine(string.Create(Inv, $"  {r.Channels[i],-16} {r.Levels[i],6:0.000}  ({r.Levels[i] * 100,5:0.0} %)"));
             o.WriteLine();
-            o.WriteLine(string.Create(Inv, $"Mix: x {r.Chromaticity.SmallX:0.0000}, y {r.Chromaticity.SmallY:0.0000}, CCT {r.Cct.CctKelvin:0} K, Duv {r.Cct.Duv:+0.0000;-0.0000;0.0000}, Δu'v' to target {r.DeltaUPrimeVPrime:0.00000}"));
-            o.WriteLine(string.Create(Inv, $"     Ra {r.Metrics.Ra:0.0}, R9 {r.Metrics.R9:0.0}, Rf {r.Metrics.Rf:0.0}, Rg {r.Metrics.Rg:0.0}, LER {r.Metrics.LerLumensPerWatt:0} lm/W, output {r.Metrics.RelativeOutput * 100:0.0} % of all channels at full, melanopic DER {r.Metrics.MelanopicDer:0.000}{(r.Metrics.Ssi is { } ssi ? $", SSI {ssi}" : "")}"));
-            o.WriteLine(string.Create(Inv, $"Objective: {Name(r.Objective)} = {r.ObjectiveValue:0.###}"));
+            o.WriteLine($"Mix: x {N(r.Chromaticity.SmallX, "0.0000")}, y {N(r.Chromaticity.SmallY, "0.0000")}, CCT {N(r.Cct.CctKelvin, "0")} K, Duv {N(r.Cct.Duv, "+0.0000;-0.0000;0.0000")}, Δu'v' to target {N(r.DeltaUPrimeVPrime, "0.00000")}");
+            o.WriteLine($"     Ra {N(r.Metrics.Ra, "0.0")}, R9 {N(r.Metrics.R9, "0.0")}, Rf {N(r.Metrics.Rf, "0.0")}, Rg {N(r.Metrics.Rg, "0.0")}, LER {N(r.Metrics.LerLumensPerWatt, "0")} lm/W, output {N(r.Metrics.RelativeOutput * 100, "0.0")} % of all channels at full, melanopic DER {N(r.Metrics.MelanopicDer, "0.000")}{(r.Metrics.Ssi is { } ssi ? $", SSI {ssi}" : "")}");
+            o.WriteLine($"Objective: {Name(r.Objective)} = {N(r.ObjectiveValue, "0.###")}");
             o.WriteLine($"Method: {r.Method}{(r.Iterations > 0 ? $" ({r.Iterations} evaluations)" : "")}.");
         }
         foreach (var w in items.SelectMany(i => i.Warnings).Distinct()) o.WriteLine($"! {w}");

@@ -267,6 +267,25 @@ public sealed class HostileInputTests : IDisposable
         Assert.StartsWith("lumen: cannot write standard output", e.ToString(), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void Compare_and_mix_with_a_dark_spectrum_warn_instead_of_failing()
+    {
+        var text = "nm,dark,led,narrow\n" + string.Join("\n", Enumerable.Range(0, 81).Select(i =>
+        {
+            int w = 380 + 5 * i;
+            return string.Create(CultureInfo.InvariantCulture, $"{w},0,{Math.Exp(-Math.Pow((w - 560) / 60.0, 2) / 2):R},{Math.Exp(-Math.Pow((w - 520) / 8.0, 2) / 2):R}");
+        }));
+        var path = Write("dark.csv", text);
+        var (code, _, err) = CliTests.Run("", "compare", path);
+        Assert.Equal(ExitCodes.Success, code);
+        NoTrace(err);
+        var (mixCode, mixText, mixErr) = CliTests.Run("", "mix", path, "--cct", "3000");
+        Assert.Equal(ExitCodes.Success, mixCode);
+        NoTrace(mixErr);
+        Assert.Contains("Channel 'dark' has no visible power", mixText, StringComparison.Ordinal);
+        Assert.DoesNotContain("NaN", mixText, StringComparison.Ordinal);
+    }
+
     [NotRootFact]
     public void An_unreadable_file_is_an_error_record_not_a_crash()
     {

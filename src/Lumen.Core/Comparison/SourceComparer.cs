@@ -35,6 +35,8 @@ public static class SourceComparer
         var warnings = new List<string>();
         foreach (var (a, label) in new[] { (r, "reference"), (o, "other source") })
         {
+            if (!a.Chromaticity2Degree.IsDefined)
+                warnings.Add($"The {label} '{a.Name}' has no visible power: it has no chromaticity, so nothing can be compared.");
             if (a.Cct.Conditions.HasFlag(Temperature.CctConditions.FarFromLocus))
                 warnings.Add($"The {label} '{a.Name}' has |Duv| > 0.05: CCT, mired and the correction are not meaningful for it.");
             if (a.Cct.Conditions.HasFlag(Temperature.CctConditions.OutsideValidatedRange) || a.Cct.Conditions.HasFlag(Temperature.CctConditions.BeyondLocus))

@@ -50,11 +50,16 @@ public static class ChannelMixer
         var warnings = new List<string> { "Channels are assumed to add linearly (mix = Σ level·channel); real fixtures deviate when drivers, dimming curves or temperature change the channel spectra." };
         if (objective == MixObjective.MaximizeSsi && match is null) throw new ArgumentException("The SSI objective needs a spectrum to match.", nameof(match));
 
+        // A channel without visible power cannot move the chromaticity: it stays at 0 and is named in a warning.
+        var dark = Enumerable.Range(0, xyz.Length).Where(i => !(xyz[i].Y > 0) || !double.IsFinite(xyz[i].X + xyz[i].Y + xyz[i].Z)).ToHashSet();
+        foreach (var i in dark) warnings.Add($"Channel '{names[i]}' has no visible power; it is left at 0.");
+        if (dark.Count > xyz.Length - 1) throw new ArgumentException("Mixing needs at least one channel with visible power.", nameof(channels));
+        var usable = xyz.Select((t, i) => dark.Contains(i) ? new Tristimulus(0, 0, 0) : t).ToArray();
         var context = new Context(grid, values, xyz, channels[0].Unit, match, maxTotal);
-        var vertices = Vertices(xyz, target);
+        var vertices = Vertices(usable, target).Where(v => dark.All(i => v[i] == 0)).ToList();
         if (vertices.Count == 0)
         {
-            var (levels, residual) = Nearest(xyz, target);
+            var (levels, residual) = Nearest(usable, target);
             var near = context.Finish(context.Scale(levels), target);
             warnings.Add($"The target is outside the channels' gamut: the nearest reachable mix misses it by Δu′v′ {residual:0.0000}.");
             return near with { Channels = names, Reachable = residual <= tolerance, Objective = objective, ObjectiveValue = context.Objective(levels, objective), Method = "outside the gamut: nearest point of the channels' hull in u′v′ (two channels)", Warnings = [.. warnings, .. near.Warnings] };
@@ -96,6 +101,7 @@ public static class ChannelMixer
         }
         for (int i = 0; i < n; i++)
         {
+            if (!(xyz[i].Y > 0)) continue; // a dark channel is never part of a solution
             // A single channel at the target (both rows vanish).
             double scale = Math.Abs(xyz[i].Y) + 1e-300;
             if (Math.Abs(a[i]) < 1e-9 * scale && Math.Abs(b[i]) < 1e-9 * scale) { var l = new double[n]; l[i] = 1; Add(l); }
@@ -131,6 +137,7 @@ public static class ChannelMixer
         for (int i = 0; i < n; i++)
             for (int j = i; j < n; j++)
             {
+                if (!(d[i] > 0) || !(d[j] > 0)) continue;
                 // Nearest point of segment p_i–p_j to the target, in u′v′.
                 double ax = p[i].UPrime, ay = p[i].VPrime, bx = p[j].UPrime, by = p[j].VPrime;
                 double ex = bx - ax, ey = by - ay, len2 = ex * ex + ey * ey;
