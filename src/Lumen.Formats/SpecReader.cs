@@ -218,10 +218,19 @@ public static class SpecReader
             if (p.Name is not ("field" or "min" or "max")) { error($"{path}/{p.Name}", $"unknown key '{p.Name}' in a limit; expected field, min, max"); return null; }
         if (!item.TryGetProperty("field", out var f) || f.ValueKind != JsonValueKind.String) { error(path, "a limit needs \"field\": a path into the analyze JSON, e.g. \"cri.ra\""); return null; }
         string field = f.GetString()!;
+        if (field.Contains('[', StringComparison.Ordinal))
+        {
+            // 0-based index syntax silently checked the wrong quantity (cri.r[9] is R10); fields now number from 1.
+            string? meant = ResultFields.FromIndexSyntax(field);
+            error($"{path}/field", meant is null
+                ? $"'{field}': index syntax is not accepted; fields number from 1 as the trade does, e.g. cri.r9 (R9), fidelity.hueBin1.rcs, fidelity.rfCes5"
+                : $"'{field}': index syntax is not accepted (it counted from 0: this was {meant.Replace("cri.r", "R", StringComparison.Ordinal)}); write '{meant}' — fields number from 1 as the trade does");
+            return null;
+        }
         if (!ResultFields.IsKnown(field))
         {
             var hint = ResultFields.Paths.Where(x => x.StartsWith(field.Split('.')[0], StringComparison.Ordinal)).Take(6);
-            error($"{path}/field", $"unknown field '{field}'; expected a numeric path such as cri.ra, cri.r[8], fidelity.rf, cct.duv{(hint.Any() ? " (known here: " + string.Join(", ", hint) + ", …)" : "")}");
+            error($"{path}/field", $"unknown field '{field}'; expected a numeric path such as cri.ra, cri.r9, fidelity.rf, cct.duv{(hint.Any() ? " (known here: " + string.Join(", ", hint) + ", …)" : "")}");
             return null;
         }
         double? min = null, max = null;

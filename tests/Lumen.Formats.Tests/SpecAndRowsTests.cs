@@ -16,7 +16,7 @@ public class SpecReaderTests
     {
         var spec = Read("""
             {"name": "DL", "target": {"nominalCct": 3000}, "chromaticity": {"ellipseSteps": 3},
-             "limits": [{"field": "cri.ra", "min": 90}, {"field": "cri.r[8]", "min": 50}, {"field": "cct.duv", "max": 0.006}]}
+             "limits": [{"field": "cri.ra", "min": 90}, {"field": "cri.r9", "min": 50}, {"field": "cct.duv", "max": 0.006}]}
             """, out var errors);
         Assert.Empty(errors);
         Assert.Equal(TargetKind.NominalCct, spec!.Target!.Kind);
@@ -34,6 +34,29 @@ public class SpecReaderTests
         var spec = Read(json, out var errors);
         Assert.Empty(errors);
         Assert.Equal(kind, spec!.Tolerance.Kind);
+    }
+
+    [Theory]
+    [InlineData("cri.r[8]", "write 'cri.r9'")]
+    [InlineData("cri.r[9]", "this was R10); write 'cri.r10'")]
+    [InlineData("fidelity.hueBins[0].rcs", "write 'fidelity.hueBin1.rcs'")]
+    [InlineData("fidelity.rfCes[4]", "write 'fidelity.rfCes5'")]
+    public void Index_syntax_is_rejected_naming_the_field_it_meant(string field, string expected)
+    {
+        // The trap found in review: cri.r[9] was accepted and checked R10.
+        Read($"{{\"name\": \"x\", \"limits\": [{{\"field\": \"{field}\", \"min\": 50}}]}}", out var errors);
+        var e = Assert.Single(errors);
+        Assert.Contains(expected, e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Every_field_numbered_by_the_trade_resolves_from_1()
+    {
+        for (int i = 1; i <= 14; i++) Assert.True(Lumen.Analysis.ResultFields.IsKnown($"cri.r{i}"), $"cri.r{i}");
+        for (int j = 1; j <= 16; j++) Assert.True(Lumen.Analysis.ResultFields.IsKnown($"fidelity.hueBin{j}.rcs"));
+        Assert.False(Lumen.Analysis.ResultFields.IsKnown("cri.r0"));
+        Assert.False(Lumen.Analysis.ResultFields.IsKnown("cri.r15"));
+        Assert.DoesNotContain(Lumen.Analysis.ResultFields.Paths, p => p.Contains('[', StringComparison.Ordinal));
     }
 
     [Fact]
@@ -113,15 +136,23 @@ public class AssessmentFieldTests
         Assert.True(checkedCount > 150);
     }
 
+    // The JSON keeps arrays (cri.r, fidelity.rfCes, fidelity.hueBins); the 1-based field names map onto them.
     private static JsonElement? Navigate(JsonElement e, string path)
     {
+        var m = System.Text.RegularExpressions.Regex.Match(path, @"^(cri\.r|fidelity\.rfCes|fidelity\.hueBin)(\d+)(.*)$");
+        if (m.Success)
+        {
+            int k = int.Parse(m.Groups[2].Value, System.Globalization.CultureInfo.InvariantCulture) - 1;
+            string arrayPath = m.Groups[1].Value == "fidelity.hueBin" ? "fidelity.hueBins" : m.Groups[1].Value;
+            var arr = Navigate(e, arrayPath);
+            if (arr is null) return null;
+            var item = arr.Value[k];
+            return m.Groups[3].Value.Length == 0 ? item : Navigate(item, m.Groups[3].Value.TrimStart('.'));
+        }
         foreach (var part in path.Split('.'))
         {
-            string name = part; int? index = null;
-            int b = part.IndexOf('[', StringComparison.Ordinal);
-            if (b >= 0) { name = part[..b]; index = int.Parse(part[(b + 1)..^1], System.Globalization.CultureInfo.InvariantCulture); }
-            if (!e.TryGetProperty(name, out var next)) return null;
-            e = index is { } i ? next[i] : next;
+            if (!e.TryGetProperty(part, out var next)) return null;
+            e = next;
         }
         return e;
     }

@@ -6,7 +6,7 @@ using Lumen.Cie;
 namespace Lumen.Analysis;
 
 /// <summary>
-/// Numeric result fields by their path in the <c>analyze</c> JSON object (e.g. <c>cct.duv</c>, <c>cri.r[8]</c>,
+/// Numeric result fields by their path in the <c>analyze</c> JSON object (e.g. <c>cct.duv</c>, <c>cri.r9</c>,
 /// <c>nonVisual.melanopic.der</c>), for tolerance specs and batch statistics. A test checks that every path
 /// here exists in the JSON output with the same value.
 /// </summary>
@@ -28,6 +28,22 @@ public static class ResultFields
     /// <returns>The value in the field's own unit (as in the JSON output), or null.</returns>
     public static double? Get(Assessment a, string path) =>
         Fields.TryGetValue(path, out var f) ? f(a) : null;
+
+    /// <summary>
+    /// For a path in the 0-based index syntax of earlier versions (<c>cri.r[8]</c>, <c>fidelity.hueBins[0].rcs</c>,
+    /// <c>fidelity.rfCes[4]</c>), the 1-based field it meant (<c>cri.r9</c>, <c>fidelity.hueBin1.rcs</c>, <c>fidelity.rfCes5</c>); else null.
+    /// </summary>
+    /// <param name="path">A field path.</param>
+    /// <returns>The field the index syntax meant, or null.</returns>
+    public static string? FromIndexSyntax(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        var m = System.Text.RegularExpressions.Regex.Match(path, @"^(cri\.r|fidelity\.rfCes|fidelity\.hueBins)\[(\d+)\](.*)$");
+        if (!m.Success || !int.TryParse(m.Groups[2].Value, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int k)) return null;
+        string stem = m.Groups[1].Value == "fidelity.hueBins" ? "fidelity.hueBin" : m.Groups[1].Value;
+        string meant = $"{stem}{k + 1}{m.Groups[3].Value}";
+        return IsKnown(meant) ? meant : null;
+    }
 
     /// <summary>The result group that computes a field (colorimetry for the always-computed fields).</summary>
     /// <param name="path">A field path such as <c>photometry.ler</c>.</param>
@@ -126,14 +142,15 @@ public static class ResultFields
             ["spectral.dominantNm"] = a => a.Spectral?.DominantNm,
             ["spectral.purity"] = a => a.Spectral?.Purity,
         };
-        for (int i = 0; i < 14; i++) { int k = i; d[$"cri.r[{k}]"] = a => a.Cri is { } c ? c.R[k] : null; }
-        for (int i = 0; i < 99; i++) { int k = i; d[$"fidelity.rfCes[{k}]"] = a => a.Fidelity is { } f ? f.RfCes[k] : null; }
+        // Numbered as the trade numbers them, from 1: R1–R14, CES1–CES99, hue bins 1–16 (no 0-based index syntax).
+        for (int i = 0; i < 14; i++) { int k = i; d[$"cri.r{k + 1}"] = a => a.Cri is { } c ? c.R[k] : null; }
+        for (int i = 0; i < 99; i++) { int k = i; d[$"fidelity.rfCes{k + 1}"] = a => a.Fidelity is { } f ? f.RfCes[k] : null; }
         for (int j = 0; j < 16; j++)
         {
             int k = j;
-            d[$"fidelity.hueBins[{k}].rf"] = a => a.Fidelity is { } f ? f.HueBins[k].Rf : null;
-            d[$"fidelity.hueBins[{k}].rcs"] = a => a.Fidelity is { } f ? f.HueBins[k].Rcs * 100 : null;
-            d[$"fidelity.hueBins[{k}].rhs"] = a => a.Fidelity is { } f ? f.HueBins[k].Rhs : null;
+            d[$"fidelity.hueBin{k + 1}.rf"] = a => a.Fidelity is { } f ? f.HueBins[k].Rf : null;
+            d[$"fidelity.hueBin{k + 1}.rcs"] = a => a.Fidelity is { } f ? f.HueBins[k].Rcs * 100 : null;
+            d[$"fidelity.hueBin{k + 1}.rhs"] = a => a.Fidelity is { } f ? f.HueBins[k].Rhs : null;
         }
         foreach (PhotometricQuantity q in Enum.GetValues<PhotometricQuantity>())
         {

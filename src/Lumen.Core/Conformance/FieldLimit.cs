@@ -1,7 +1,7 @@
 namespace Lumen.Conformance;
 
 /// <summary>A limit on one result field.</summary>
-/// <param name="Field">Path into the analyze JSON object, e.g. <c>cri.ra</c>, <c>cri.r[8]</c>.</param>
+/// <param name="Field">Path into the analyze JSON object, e.g. <c>cri.ra</c>, <c>cri.r9</c>.</param>
 /// <param name="Min">Lower limit (inclusive), or null.</param>
 /// <param name="Max">Upper limit (inclusive), or null.</param>
 /// <param name="Line">Line of the limit in the spec file (for messages).</param>
