@@ -47,8 +47,8 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         {
             failure = OutputTarget.WriteText(outPath, stdout, w =>
             {
-                var writer = new BatchResultWriter(w, json, spec!.Spec);
-                summary = Run(inputs, spec, writer, threads);
+                var writer = new BatchResultWriter(w, json, spec!);
+                summary = Run(inputs, spec!, writer, threads);
                 writer.Complete();
             }, partial: () => interrupt.IsCancellationRequested);
         }
@@ -67,8 +67,8 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         bool summaryJson = summaryPath?.EndsWith(".json", StringComparison.OrdinalIgnoreCase) == true;
         void WriteSummary(TextWriter w)
         {
-            if (summaryJson) BatchSummaryWriter.WriteJson(summary!, spec!.Spec, w);
-            else BatchSummaryWriter.WriteText(summary!, spec!.Spec, w);
+            if (summaryJson) BatchSummaryWriter.WriteJson(summary!, spec!, w);
+            else BatchSummaryWriter.WriteText(summary!, spec!, w);
         }
         if (summaryTarget is null) WriteSummary(stderr);
         else if (OutputTarget.WriteText(summaryTarget, stdout, WriteSummary) is { } f) return CommonOptions.OutputFailed(stderr, f);

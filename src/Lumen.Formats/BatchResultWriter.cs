@@ -8,6 +8,7 @@ public sealed class BatchResultWriter
 {
     private readonly TextWriter _out;
     private readonly ColumnSchema<RecordOutcome>? _csv;
+    private readonly PreparedSpec? _prepared;
     private bool _first = true;
 
     /// <summary>Starts the output (CSV header, or the opening bracket of the JSON array).</summary>
@@ -15,9 +16,20 @@ public sealed class BatchResultWriter
     /// <param name="json">JSON instead of CSV.</param>
     /// <param name="spec">The specification (its criteria become CSV columns).</param>
     public BatchResultWriter(TextWriter output, bool json, ToleranceSpec spec)
+        : this(output, json, new PreparedSpec(spec ?? throw new ArgumentNullException(nameof(spec))))
+    {
+    }
+
+    /// <summary>Starts the output for a prepared specification (JSON rows then carry its target in each verdict).</summary>
+    /// <param name="output">Destination.</param>
+    /// <param name="json">JSON instead of CSV.</param>
+    /// <param name="prepared">The prepared specification.</param>
+    public BatchResultWriter(TextWriter output, bool json, PreparedSpec prepared)
     {
         ArgumentNullException.ThrowIfNull(output);
-        ArgumentNullException.ThrowIfNull(spec);
+        ArgumentNullException.ThrowIfNull(prepared);
+        var spec = prepared.Spec;
+        _prepared = prepared;
         _out = output;
         if (json) _out.WriteLine("[");
         else
@@ -36,7 +48,7 @@ public sealed class BatchResultWriter
         if (!_first) _out.WriteLine(",");
         _first = false;
         using var sw = new StringWriter();
-        JsonOutput.Write(sw, w => WriteObject(w, item), indented: false);
+        JsonOutput.Write(sw, w => WriteObject(w, item, _prepared), indented: false);
         _out.Write(sw.ToString().TrimEnd('\n', '\r'));
     }
 
@@ -51,7 +63,7 @@ public sealed class BatchResultWriter
         _out.Flush();
     }
 
-    private static void WriteObject(System.Text.Json.Utf8JsonWriter w, RecordOutcome item)
+    private static void WriteObject(System.Text.Json.Utf8JsonWriter w, RecordOutcome item, PreparedSpec? prepared)
     {
         w.WriteStartObject();
         w.WriteString("id", item.Record.Name);
@@ -82,6 +94,7 @@ public sealed class BatchResultWriter
                 w.WriteEndObject();
             }
             w.WriteEndArray();
+            if (prepared is not null) JsonTarget.Write(w, prepared);
             w.WriteEndObject();
             w.StringArray("warnings", a.Warnings);
         }

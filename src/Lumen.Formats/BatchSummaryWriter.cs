@@ -14,12 +14,14 @@ public static class BatchSummaryWriter
     /// <param name="s">Summary.</param>
     /// <param name="spec">Spec.</param>
     /// <param name="output">Destination.</param>
-    public static void WriteText(BatchSummary s, ToleranceSpec spec, TextWriter output)
+    public static void WriteText(BatchSummary s, PreparedSpec spec, TextWriter output)
     {
         ArgumentNullException.ThrowIfNull(s);
         ArgumentNullException.ThrowIfNull(spec);
         ArgumentNullException.ThrowIfNull(output);
-        output.WriteLine($"Batch summary — {spec.Description}");
+        output.WriteLine($"Batch summary — {spec.Spec.Description}");
+        if (spec.TargetDescription is { } target) output.WriteLine($"Target: {target}");
+        foreach (var c in spec.Cautions) output.WriteLine($"! {c}");
         output.WriteLine(string.Create(Inv, $"Records read {s.RecordsRead} = results {s.Results} + errors {s.Errors}"));
         output.WriteLine(string.Create(Inv, $"Pass {s.Passed}, fail {s.Failed}, pass rate {(double.IsNaN(s.PassRate) ? "—" : (s.PassRate * 100).ToString("0.0", Inv) + " %")}"));
         output.WriteLine();
@@ -50,7 +52,7 @@ public static class BatchSummaryWriter
     /// <param name="s">Summary.</param>
     /// <param name="spec">Spec.</param>
     /// <param name="output">Destination.</param>
-    public static void WriteJson(BatchSummary s, ToleranceSpec spec, TextWriter output)
+    public static void WriteJson(BatchSummary s, PreparedSpec spec, TextWriter output)
     {
         ArgumentNullException.ThrowIfNull(s);
         ArgumentNullException.ThrowIfNull(spec);
@@ -58,7 +60,8 @@ public static class BatchSummaryWriter
         JsonOutput.Write(output, w =>
         {
             w.WriteStartObject();
-            w.WriteString("spec", spec.Description);
+            w.WriteString("spec", spec.Spec.Description);
+            JsonTarget.Write(w, spec);
             w.WriteNumber("recordsRead", s.RecordsRead);
             w.WriteNumber("results", s.Results);
             w.WriteNumber("errors", s.Errors);

@@ -202,6 +202,8 @@ public static class HtmlReport
         var sb = new StringBuilder();
         Head(sb, "Lumen batch report");
         sb.Append("<h1>Batch report</h1><p class=\"muted\">").Append(E(spec.Spec.Description)).Append("</p>");
+        if (spec.TargetDescription is { } target) sb.Append("<p id=\"target\">").Append(E("Target: " + target)).Append("</p>");
+        foreach (var c in spec.Cautions) sb.Append("<div class=\"warn\">").Append(E(c)).Append("</div>");
         Cautions(sb, true);
         sb.Append("<h2>Summary</h2><table id=\"summary\">");
         sb.Append(Inv, $"<tr><th>records read</th><td>{summary.RecordsRead}</td></tr><tr><th>results</th><td>{summary.Results}</td></tr><tr><th>errors</th><td>{summary.Errors}</td></tr>");

@@ -136,3 +136,46 @@ public class BatchEqualsOneByOneTests
         finally { Directory.Delete(dir, true); }
     }
 }
+
+/// <summary>Every verdict output shows the target the verdict used (a trap found in review: the centre was never shown).</summary>
+public class TargetShownTests
+{
+    private static string Example(string f) => Path.Combine(CliTests.RepoRoot, "examples", "batch", f);
+
+    [Fact]
+    public void The_printed_ellipse_reproduces_each_units_steps()
+    {
+        var dir = Path.Combine(Path.GetTempPath(), $"lumen-target-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(dir);
+        try
+        {
+            var results = Path.Combine(dir, "r.json");
+            CliTests.Run("", "batch", Example("quillfern-dl30-lot-A17.csv"), "--spec", Example("spec-dl30.json"), "-o", results, "--summary", Path.Combine(dir, "s.txt"));
+            using var doc = System.Text.Json.JsonDocument.Parse(File.ReadAllText(results));
+            int checkedUnits = 0;
+            foreach (var row in doc.RootElement.EnumerateArray().Where(r => r.GetProperty("status").GetString() != "error").Take(25))
+            {
+                var v = row.GetProperty("verdict");
+                var t = v.GetProperty("target");
+                var e = t.GetProperty("ellipse");
+                double a = e.GetProperty("a").GetDouble(), b = e.GetProperty("b").GetDouble(), th = e.GetProperty("thetaDeg").GetDouble() * Math.PI / 180;
+                double dx = row.GetProperty("result").GetProperty("x").GetDouble() - t.GetProperty("x").GetDouble();
+                double dy = row.GetProperty("result").GetProperty("y").GetDouble() - t.GetProperty("y").GetDouble();
+                // The metric of the printed ellipse (docs/methods/conformance.md §2.1).
+                double g11 = Math.Cos(th) * Math.Cos(th) / (a * a) + Math.Sin(th) * Math.Sin(th) / (b * b);
+                double g12 = Math.Sin(th) * Math.Cos(th) * (1 / (a * a) - 1 / (b * b));
+                double g22 = Math.Sin(th) * Math.Sin(th) / (a * a) + Math.Cos(th) * Math.Cos(th) / (b * b);
+                double steps = Math.Sqrt(g11 * dx * dx + 2 * g12 * dx * dy + g22 * dy * dy);
+                Assert.Equal(v.GetProperty("stepsFromTarget").GetDouble(), steps, 9);
+                Assert.Contains(t.GetProperty("cautions").EnumerateArray(), c => c.GetString()!.Contains("recalled", StringComparison.Ordinal));
+                checkedUnits++;
+            }
+            Assert.Equal(25, checkedUnits);
+            var summary = File.ReadAllText(Path.Combine(dir, "s.txt"));
+            Assert.Contains("Target: centre x 0.43", summary, StringComparison.Ordinal);
+            Assert.Contains("1-step ellipse a 0.00278, b 0.00136, θ 53.22°", summary, StringComparison.Ordinal);
+            Assert.Contains("recalled values", summary, StringComparison.Ordinal);
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+}

@@ -38,6 +38,46 @@ public sealed class PreparedSpec
     public Quadrangle? Quadrangle => _quadrangle;
 
     /// <summary>
+    /// Cautions that every verdict output must carry for this target: the step-ellipse shapes rest on recalled values,
+    /// and a flexible-CCT quadrangle's tolerance is interpolated (docs/methods/conformance.md §1, §2.2).
+    /// </summary>
+    public IReadOnlyList<string> Cautions
+    {
+        get
+        {
+            var c = new List<string>();
+            if (_ellipse is { } e && e.Source.Contains("from memory", StringComparison.Ordinal))
+                c.Add("The step-ellipse shape rests on recalled values (ANSI C78.376 / IEC 60081 style, from memory): verify against the standard before claiming conformance.");
+            if (_quadrangle is not null && Spec.Target?.Category?.Flexible == true)
+                c.Add("Flexible-CCT quadrangle: its CCT tolerance is interpolated between the neighbouring categories, not taken from the standard.");
+            return c;
+        }
+    }
+
+    /// <summary>
+    /// The target as the verdicts use it, in words: centre (xy, u′v′, CCT and Duv), the step ellipse (a, b, θ, source),
+    /// and the quadrangle corners or the circle radius of the tolerance; null without a target.
+    /// </summary>
+    public string? TargetDescription
+    {
+        get
+        {
+            if (Spec.Target is null) return null;
+            var c = _centre;
+            var cct = Temperature.CctSolver.Solve(c);
+            var sb = new System.Text.StringBuilder(System.FormattableString.Invariant(
+                $"centre x {c.SmallX:0.00000}, y {c.SmallY:0.00000} (u′ {c.UPrime:0.00000}, v′ {c.VPrime:0.00000}; CCT {cct.CctKelvin:0} K, Duv {cct.Duv:+0.0000;-0.0000;0.0000})"));
+            if (_ellipse is { } e)
+                sb.Append(System.FormattableString.Invariant($"; 1-step ellipse a {e.A:0.00000}, b {e.B:0.00000}, θ {e.ThetaDegrees:0.00}° ({e.Source})"));
+            if (_quadrangle is { } q)
+                sb.Append("; quadrangle corners ").Append(string.Join(" ", q.Corners.Select(p => System.FormattableString.Invariant($"({p.SmallX:0.0000}, {p.SmallY:0.0000})"))));
+            if (Spec.Tolerance.Kind == ToleranceKind.UPrimeVPrimeRadius)
+                sb.Append(System.FormattableString.Invariant($"; Δu′v′ circle radius {Spec.Tolerance.Value:0.0000}"));
+            return sb.ToString();
+        }
+    }
+
+    /// <summary>
     /// The result groups an assessment needs for this specification: colorimetry always, CIE 13.3 and CIE 224 for the batch
     /// summary's statistics, and every group a limit names.
     /// </summary>
