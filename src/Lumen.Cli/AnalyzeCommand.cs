@@ -11,6 +11,7 @@ namespace Lumen.Cli;
 internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWriter stderr)
 {
     private readonly InputOptions _inputs = new();
+    private readonly SpecOptions _spec = new(required: false);
 
     public Option<string> ObserverOption { get; } = new("--observer")
     {
@@ -67,6 +68,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         C2Option.AcceptOnlyFromAmong("cie15", "codata");
         var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT, Duv, colour rendition (Ra, R1–R14, Rf, Rg), photometry and CIE S 026 values of every spectrum in the inputs.");
         _inputs.AddTo(cmd);
+        _spec.AddTo(cmd);
         cmd.Add(ObserverOption); cmd.Add(FormatOption); cmd.Add(OutputOption); cmd.Add(MetricsOption); cmd.Add(C2Option); cmd.Add(DetailOption);
         cmd.SetAction(Execute);
         return cmd;
@@ -74,6 +76,8 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
 
     private int Execute(ParseResult parse)
     {
+        if (!_spec.TryLoad(parse, stdout, stderr, out var spec, out bool printed)) return ExitCodes.UsageError;
+        if (printed) return ExitCodes.Success;
         if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(OutputOption))) return ExitCodes.UsageError;
         if (!TryParseMetrics(parse.GetValue(MetricsOption) ?? "all", out var metrics, out var badMetric))
         {
@@ -84,15 +88,16 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         if (OutputTarget.ConflictWithInputs(outPath, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen: {conflict}."); return ExitCodes.UsageError; }
         var observer = parse.GetValue(ObserverOption) == "10" ? Observer.Cie1964TenDegree : Observer.Cie1931TwoDegree;
         var c2 = parse.GetValue(C2Option) == "codata" ? C2Convention.Codata2018 : C2Convention.Cie15Its90;
-        var options = new AssessmentOptions(observer, new CctOptions(C2: c2), metrics);
+        var options = new AssessmentOptions(observer, new CctOptions(C2: c2), spec is null ? metrics : metrics | spec.RequiredMetrics);
 
         var format = CommonOptions.ToOutputFormat(parse.GetValue(FormatOption));
-        bool anyError = false;
+        bool anyError = false, anyFail = false;
         RecordOutcome Next(InputRecord record)
         {
-            var outcome = RecordOutcome.Of(record, options);
+            var outcome = RecordOutcome.Of(record, options, spec);
             CommonOptions.ReportError(stderr, outcome.Error);
             anyError |= outcome.Error is not null;
+            anyFail |= outcome.Verdict?.Pass == false;
             return outcome;
         }
         // JSON and CSV stream record by record (flat memory); the text table is sized from all rows.
@@ -100,11 +105,16 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
             ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(inputs.Records(stdin).Select(Next).ToList(), format, w, parse.GetValue(DetailOption)))
             : OutputTarget.WriteText(outPath, stdout, w =>
             {
-                var writer = new AnalysisStreamWriter(w, format);
+                var writer = new AnalysisStreamWriter(w, format, withVerdict: spec is not null);
                 foreach (var record in inputs.Records(stdin)) writer.Write(Next(record));
                 writer.Complete();
             });
         if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
-        return anyError ? ExitCodes.InputErrors : ExitCodes.Success;
+        if (spec is not null && format == OutputFormat.Text && OutputTarget.IsStdout(outPath))
+        {
+            if (spec.TargetDescription is { } target) stdout.WriteLine($"Specification: {spec.Spec.Description}. Target: {target}.");
+            foreach (var c in spec.Cautions) stdout.WriteLine($"! {c}");
+        }
+        return anyError ? ExitCodes.InputErrors : anyFail ? ExitCodes.SpecificationFailed : ExitCodes.Success;
     }
 }

@@ -14,7 +14,7 @@ namespace Lumen.Cli;
 internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal, CancellationToken interrupt = default)
 {
     private readonly InputOptions _inputs = new();
-    public Option<string> Spec { get; } = new("--spec") { Description = "Tolerance specification (JSON; see examples/batch/spec-dl30.json).", Required = true };
+    private readonly SpecOptions _spec = new(required: true);
     public Option<string?> Out { get; } = OutputTarget.Option("Results file, one row per input record (.json for JSON, else CSV); default: CSV on standard output.");
     public Option<string?> Summary { get; } = new("--summary") { Description = "Summary file (.json for JSON, else text); default: standard output after a results file, or standard error." };
     public Option<int> Threads { get; } = new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
@@ -26,14 +26,16 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     {
         var cmd = new Command("batch", "Check many spectra against a tolerance spec: pass/fail per unit, batch statistics, outliers, Cpk.");
         _inputs.AddTo(cmd);
-        cmd.Add(Spec); cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads);
+        _spec.AddTo(cmd);
+        cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads);
         cmd.SetAction(Execute);
         return cmd;
     }
 
     private int Execute(ParseResult parse)
     {
-        if (!CommonOptions.TryLoadSpec(parse.GetValue(Spec)!, stderr, out var spec)) return ExitCodes.UsageError;
+        if (!_spec.TryLoad(parse, stdout, stderr, out var spec, out bool printed)) return ExitCodes.UsageError;
+        if (printed) return ExitCodes.Success;
         if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out), parse.GetValue(Summary))) return ExitCodes.UsageError;
         string? outPath = parse.GetValue(Out), summaryPath = parse.GetValue(Summary);
         foreach (var p in new[] { outPath, summaryPath })

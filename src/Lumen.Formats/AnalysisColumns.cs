@@ -26,6 +26,18 @@ public static class AnalysisColumns
         Column<RecordOutcome>.Number("rg", o => o.Assessment?.Fidelity?.Rg, "0.0", "Rg"),
     ]);
 
+    /// <summary>The CSV with a specification: every column of <see cref="Csv"/>, then <c>verdict</c> (pass/fail) and <c>failed</c> (the criteria that failed).</summary>
+    public static ColumnSchema<RecordOutcome> CsvWithVerdict { get; } = new([.. BuildCsv(), .. VerdictColumns()]);
+
+    /// <summary>The text table with a specification: the table's columns and the verdict.</summary>
+    public static ColumnSchema<RecordOutcome> TableWithVerdict { get; } = new([.. Table.Columns, .. VerdictColumns()]);
+
+    private static IEnumerable<Column<RecordOutcome>> VerdictColumns()
+    {
+        yield return Column<RecordOutcome>.Text("verdict", o => o.Verdict is { } v ? (v.Pass ? "pass" : "fail") : null, "Verdict");
+        yield return Column<RecordOutcome>.Text("failed", o => o.Verdict is { } v ? string.Join(" | ", v.Criteria.Where(c => !c.Pass).Select(c => c.Criterion)) : null, "Failed");
+    }
+
     private static List<Column<RecordOutcome>> BuildCsv()
     {
         static Column<RecordOutcome> N(string name, Func<Assessment, double?> f) => Column<RecordOutcome>.Number(name, o => o.Assessment is { } a ? f(a) : null);

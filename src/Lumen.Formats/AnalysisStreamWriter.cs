@@ -11,20 +11,23 @@ public sealed class AnalysisStreamWriter
 {
     private readonly TextWriter _out;
     private readonly bool _json;
+    private readonly ColumnSchema<RecordOutcome> _csv;
     private bool _first = true;
 
     /// <summary>Starts the output: the CSV header, or the opening bracket of the JSON array.</summary>
     /// <param name="output">Destination.</param>
     /// <param name="format"><see cref="OutputFormat.Json"/> or <see cref="OutputFormat.Csv"/>.</param>
     /// <exception cref="ArgumentException">The format is <see cref="OutputFormat.Text"/>.</exception>
-    public AnalysisStreamWriter(TextWriter output, OutputFormat format)
+    /// <param name="withVerdict">CSV: add the verdict columns (a specification was given).</param>
+    public AnalysisStreamWriter(TextWriter output, OutputFormat format, bool withVerdict = false)
     {
         ArgumentNullException.ThrowIfNull(output);
         if (format == OutputFormat.Text) throw new ArgumentException("The text table is not streamed.", nameof(format));
         _out = output;
         _json = format == OutputFormat.Json;
+        _csv = withVerdict ? AnalysisColumns.CsvWithVerdict : AnalysisColumns.Csv;
         if (_json) _out.Write('[');
-        else AnalysisColumns.Csv.WriteCsvHeader(_out);
+        else _csv.WriteCsvHeader(_out);
     }
 
     /// <summary>Writes one record.</summary>
@@ -32,7 +35,7 @@ public sealed class AnalysisStreamWriter
     public void Write(RecordOutcome item)
     {
         ArgumentNullException.ThrowIfNull(item);
-        if (!_json) { AnalysisColumns.Csv.WriteCsvRow(_out, item); return; }
+        if (!_json) { _csv.WriteCsvRow(_out, item); return; }
         _out.Write(_first ? "\n" : ",\n");
         _first = false;
         using var sw = new StringWriter();

@@ -21,7 +21,8 @@ public static class AnalysisWriter
     /// <param name="detail">With text: a block of every result per spectrum after the table.</param>
     public static void Write(IReadOnlyList<RecordOutcome> items, OutputFormat format, TextWriter output, bool detail = false)
     {
-        FormattedOutput.Write(items, format, output, WriteRecord, AnalysisColumns.Csv, (all, o) =>
+        bool verdicts = items.Any(i => i.Verdict is not null);
+        FormattedOutput.Write(items, format, output, WriteRecord, verdicts ? AnalysisColumns.CsvWithVerdict : AnalysisColumns.Csv, (all, o) =>
         {
             WriteText(all, o);
             if (detail) WriteDetail(all, o);
@@ -35,7 +36,7 @@ public static class AnalysisWriter
     {
         ArgumentNullException.ThrowIfNull(items);
         ArgumentNullException.ThrowIfNull(output);
-        AnalysisColumns.Table.WriteTable(output, items,
+        (items.Any(i => i.Verdict is not null) ? AnalysisColumns.TableWithVerdict : AnalysisColumns.Table).WriteTable(output, items,
             wholeLine: o => o.Error is { } e ? $"ERROR {e}" : null,
             suffix: o => o.Assessment?.Warnings.Count > 0 ? "  !" : "");
         var obs = items.FirstOrDefault(i => i.Assessment is not null)?.Assessment?.Observer ?? Observer.Cie1931TwoDegree;
@@ -207,6 +208,27 @@ public static class AnalysisWriter
             w.NumberOrNull("dominantNm", sd.DominantNm);
             w.NumberOrNull("purity", sd.Purity);
             w.WriteString("whitePoint", sd.WhitePoint);
+            w.WriteEndObject();
+        }
+        if (item.Verdict is { } v)
+        {
+            w.WriteStartObject("verdict");
+            w.WriteBoolean("pass", v.Pass);
+            w.NumberOrNull("stepsFromTarget", v.StepsFromTarget);
+            w.NumberOrNull("deltaUPrimeVPrimeFromTarget", v.DeltaUPrimeVPrimeFromTarget);
+            w.WriteStartArray("criteria");
+            foreach (var c in v.Criteria)
+            {
+                w.WriteStartObject();
+                w.WriteString("criterion", c.Criterion);
+                w.NumberOrNull("measured", c.Measured);
+                w.WriteString("limit", c.Limit);
+                w.NumberOrNull("margin", c.Margin);
+                w.WriteBoolean("pass", c.Pass);
+                if (c.Note is not null) w.WriteString("note", c.Note);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
             w.WriteEndObject();
         }
         w.StringArray("warnings", a.Warnings);
