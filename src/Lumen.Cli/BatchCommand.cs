@@ -11,7 +11,7 @@ using Lumen.Formats;
 namespace Lumen.Cli;
 
 /// <summary><c>lumen batch INPUT... --spec SPEC</c>: streams many spectra through the assessment and a tolerance spec.</summary>
-internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal, CancellationToken interrupt = default)
+internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal, CancellationToken interrupt = default, bool stdoutIsTerminal = false)
 {
     private readonly InputOptions _inputs = new();
     private readonly SpecOptions _spec = new(required: true);
@@ -21,6 +21,23 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
 
     /// <summary>Records computed per parallel chunk (input order is kept).</summary>
     internal const int ChunkSize = 512;
+
+    /// <summary>Most rows of the terminal table, and most passing rows among them.</summary>
+    private const int TerminalRowLimit = 200, TerminalPassRows = 20;
+
+    /// <summary>The readable verdict table for a terminal: rounded to the digits that matter.</summary>
+    private static readonly ColumnSchema<RecordOutcome> VerdictTable = new(
+    [
+        Column<RecordOutcome>.Text("id", o => o.Record.Name, "Unit"),
+        Column<RecordOutcome>.Text("status", o => o.Status, "Verdict"),
+        Column<RecordOutcome>.Number("cct_k", o => o.Assessment?.Cct.CctKelvin, "0", "CCT (K)"),
+        Column<RecordOutcome>.Number("duv", o => o.Assessment?.Cct.Duv, "+0.0000;-0.0000;0.0000", "Duv"),
+        Column<RecordOutcome>.Number("steps", o => o.Verdict?.StepsFromTarget, "0.0", "Steps"),
+        Column<RecordOutcome>.Number("ra", o => o.Assessment?.Cri?.Ra, "0.0", "Ra"),
+        Column<RecordOutcome>.Number("r9", o => o.Assessment?.Cri?.R9, "0.0", "R9"),
+        Column<RecordOutcome>.Number("rf", o => o.Assessment?.Fidelity?.Rf, "0.0", "Rf"),
+        Column<RecordOutcome>.Text("failed", o => o.Verdict is { } v ? string.Join(" | ", v.Criteria.Where(c => !c.Pass).Select(c => c.Criterion)) : null, "Failed"),
+    ]);
 
     public Command Build()
     {
@@ -45,6 +62,30 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
 
         BatchSummary? summary = null;
         string? failure;
+        if (outPath is null && stdoutIsTerminal)
+        {
+            // At a terminal with no -o: a readable verdict table (failures first), not a wide CSV; -o - or a pipe gives CSV.
+            var shown = new List<RecordOutcome>();
+            int passes = 0;
+            summary = Run(inputs, spec!, new BatchResultWriter(TextWriter.Null, json, spec!), threads, o =>
+            {
+                if (o.Status == "pass" && ++passes > TerminalPassRows) return;
+                if (shown.Count < TerminalRowLimit) shown.Add(o);
+            });
+            var ordered = shown.OrderBy(o => o.Status switch { "fail" => 0, "error" => 1, _ => 2 }).ToList();
+            VerdictTable.WriteTable(stdout, ordered, wholeLine: o => o.Error is { } e ? $"error  {e}" : null);
+            if (passes > TerminalPassRows) stdout.WriteLine($"… and {passes - TerminalPassRows} more passing units (write every row with -o FILE or -o -).");
+            stdout.WriteLine();
+            stdout.WriteLine($"Specification: {spec!.Spec.Description}.");
+            if (spec.TargetDescription is { } target) stdout.WriteLine($"Target: {target}.");
+            foreach (var c in spec.Cautions) stdout.WriteLine($"! {c}");
+            stdout.WriteLine();
+            BatchSummaryWriter.WriteText(summary, spec, stdout);
+            stdout.Flush();
+            if (interrupt.IsCancellationRequested) return ExitCodes.Interrupted;
+            if (summary.Errors > 0) return ExitCodes.InputErrors;
+            return summary.Failed > 0 ? ExitCodes.SpecificationFailed : ExitCodes.Success;
+        }
         try
         {
             failure = OutputTarget.WriteText(outPath, stdout, w =>
@@ -79,7 +120,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     }
 
     /// <summary>Reads, assesses and judges every record, writing rows in input order; memory stays flat.</summary>
-    internal BatchSummary Run(InputSelection inputs, PreparedSpec spec, BatchResultWriter writer, int threads)
+    internal BatchSummary Run(InputSelection inputs, PreparedSpec spec, BatchResultWriter writer, int threads, Action<RecordOutcome>? observe = null)
     {
         var options = new AssessmentOptions(Metrics: spec.RequiredMetrics);
         var builder = new BatchSummaryBuilder(spec);
@@ -115,6 +156,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             {
                 writer.Write(item);
                 builder.Add(item);
+                observe?.Invoke(item);
                 CommonOptions.ReportError(stderr, item.Error);
             }
             done += items.Length;

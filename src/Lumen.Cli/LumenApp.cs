@@ -13,8 +13,9 @@ public static class LumenApp
     /// <param name="stderr">Diagnostics.</param>
     /// <param name="stderrIsTerminal">True when standard error is a terminal (progress lines are shown then).</param>
     /// <param name="interrupt">Cancelled on SIGINT or SIGTERM: a batch then stops reading and keeps what it computed.</param>
+    /// <param name="stdoutIsTerminal">True when standard output is a terminal (a batch then prints a readable verdict table instead of CSV).</param>
     /// <returns>An exit code from <see cref="ExitCodes"/>.</returns>
-    public static int Run(string[] args, TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal = false, CancellationToken interrupt = default)
+    public static int Run(string[] args, TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal = false, CancellationToken interrupt = default, bool stdoutIsTerminal = false)
     {
         ArgumentNullException.ThrowIfNull(stderr);
         // Every number Lumen parses or prints uses the invariant culture, whatever the machine's locale — on this
@@ -27,7 +28,7 @@ public static class LumenApp
         root.Subcommands.Add(new AnalyzeCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new BlackbodyCommand(stdout, stderr).Build());
         root.Subcommands.Add(new FitCommand(stdin, stdout, stderr).Build());
-        root.Subcommands.Add(new BatchCommand(stdin, stdout, stderr, stderrIsTerminal, interrupt).Build());
+        root.Subcommands.Add(new BatchCommand(stdin, stdout, stderr, stderrIsTerminal, interrupt, stdoutIsTerminal).Build());
         root.Subcommands.Add(new PlotCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new ReportCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new CompareCommand(stdin, stdout, stderr).Build());

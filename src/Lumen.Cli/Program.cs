@@ -28,7 +28,7 @@ public static class Program
         });
         try
         {
-            return LumenApp.Run(args, Console.In, stdout, Console.Error, !Console.IsErrorRedirected, interrupt.Token);
+            return LumenApp.Run(args, Console.In, stdout, Console.Error, !Console.IsErrorRedirected, interrupt.Token, !Console.IsOutputRedirected);
         }
         finally
         {

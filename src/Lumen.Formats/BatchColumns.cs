@@ -33,10 +33,10 @@ public static class BatchColumns
         {
             int k = i;
             CriterionResult? C(RecordOutcome o) => o.Verdict is { } v && k < v.Criteria.Count ? v.Criteria[k] : null;
-            c.Add(Column<RecordOutcome>.Number($"{names[k]}:value", o => C(o)?.Measured));
-            c.Add(Column<RecordOutcome>.Text($"{names[k]}:limit", o => C(o)?.Limit));
-            c.Add(Column<RecordOutcome>.Number($"{names[k]}:margin", o => C(o)?.Margin));
-            c.Add(Column<RecordOutcome>.Text($"{names[k]}:pass", o => C(o) is { } x ? (x.Pass ? "yes" : "no") : null));
+            c.Add(Column<RecordOutcome>.Number($"{names[k]}_value", o => C(o)?.Measured));
+            c.Add(Column<RecordOutcome>.Text($"{names[k]}_limit", o => C(o)?.Limit));
+            c.Add(Column<RecordOutcome>.Number($"{names[k]}_margin", o => C(o)?.Margin));
+            c.Add(Column<RecordOutcome>.Text($"{names[k]}_pass", o => C(o) is { } x ? (x.Pass ? "yes" : "no") : null));
         }
         c.AddRange(AnalysisColumns.ErrorColumns<RecordOutcome>(o => o.Error));
         return new ColumnSchema<RecordOutcome>(c);

@@ -67,3 +67,25 @@ public class QuickVerdictTests
         Assert.StartsWith("id,location,status", csv, StringComparison.Ordinal);
     }
 }
+
+/// <summary>At a terminal, batch prints a readable verdict table, failures first; to a pipe or with -o, machine formats.</summary>
+public class BatchTerminalTests
+{
+    [Fact]
+    public void A_terminal_gets_a_table_with_failures_first_and_a_pipe_gets_CSV()
+    {
+        string lot = Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"), spec = Path.Combine(CliTests.RepoRoot, "examples", "batch", "spec-dl30.json");
+        var o = new StringWriter();
+        var e = new StringWriter();
+        int code = LumenApp.Run(["batch", lot, "--spec", spec], TextReader.Null, o, e, stdoutIsTerminal: true);
+        Assert.Equal(ExitCodes.InputErrors, code); // the lot has four unreadable rows
+        var lines = o.ToString().Split('\n');
+        Assert.StartsWith("Unit", lines[0], StringComparison.Ordinal);
+        Assert.Contains(" fail ", lines[2], StringComparison.Ordinal);
+        Assert.Contains("more passing units", o.ToString(), StringComparison.Ordinal);
+        Assert.Contains("Records read 240", o.ToString(), StringComparison.Ordinal);
+        Assert.DoesNotContain("0.43387000", o.ToString(), StringComparison.Ordinal); // rounded, not 17 digits
+        var (_, csv, _) = CliTests.Run("", "batch", lot, "--spec", spec);
+        Assert.StartsWith("id,location,status", csv, StringComparison.Ordinal);
+    }
+}
