@@ -63,22 +63,32 @@ public static class VectorGraphic
         Style.Text(canvas, string.Create(CultureInfo.InvariantCulture, $"Rf {fidelity.Rf:0}   Rg {fidelity.Rg:0}"), cx, cy + 6 * s, 18 * s, Style.Ink, SKTextAlign.Center, bold: true);
         Style.Text(canvas, "circle = reference; polygon = test (bin averages); arrows per hue bin; dashed: ±10 %, ±20 % chroma", 30 * s, size.Height - 18 * s, 12 * s, Style.Muted);
 
-        // Bars: Rcs,hj (local chroma shift, %) with Rf,hj above.
-        float left = cx + 1.45f * r, right = size.Width - 30 * s, barTop = 90 * s, barBottom = size.Height - 90 * s;
-        var m = new AxisMapping(new SKRect(left + 60 * s, barTop, right, barBottom), 0.5, 16.5, -40, 40);
-        m.DrawAxes(canvas, "hue bin", "local chroma shift Rcs,hj (%)", s * 0.9f, "0", "0");
+        // Hue-bin panel, an arrangement of our own: one row per hue bin (bin 1 at the top), a horizontal bar for the local
+        // chroma shift Rcs,hj from a zero line, and the local fidelity Rf,hj written at the bar's end, with the bin's colour chip.
+        float left = cx + 1.45f * r + 90 * s, right = size.Width - 70 * s, barTop = 90 * s, barBottom = size.Height - 90 * s;
+        var m = new AxisMapping(new SKRect(left, barTop, right, barBottom), -40, 40, 0, 16);
+        using (var grid = Style.Stroke(Style.Grid, 1 * s))
+            foreach (var gx in new[] { -40, -30, -20, -10, 10, 20, 30, 40 }) canvas.DrawLine(m.Px(gx), m.Plot.Top, m.Px(gx), m.Plot.Bottom, grid);
+        foreach (var gx in new[] { -40, -20, 0, 20, 40 })
+            Style.Text(canvas, gx.ToString("+0;-0;0", CultureInfo.InvariantCulture), m.Px(gx), m.Plot.Bottom + 16 * s, 11 * s, Style.Muted, SKTextAlign.Center);
+        Style.Text(canvas, "local chroma shift Rcs,hj (%) — bar;  local fidelity Rf,hj — number at its end", (m.Plot.Left + m.Plot.Right) / 2, m.Plot.Bottom + 36 * s, 12 * s, Style.Muted, SKTextAlign.Center);
+        float rowH = m.Plot.Height / 16;
         for (int j = 0; j < 16; j++)
         {
+            float yc = m.Plot.Top + (j + 0.5f) * rowH;
+            using (var chip = Style.Fill(colours[j])) canvas.DrawRoundRect(new SKRect(m.Plot.Left - 84 * s, yc - 0.32f * rowH, m.Plot.Left - 66 * s, yc + 0.32f * rowH), 3 * s, 3 * s, chip);
+            Style.Text(canvas, string.Create(CultureInfo.InvariantCulture, $"bin {j + 1}"), m.Plot.Left - 60 * s, yc + 4 * s, 11 * s, Style.Ink);
             double v = bins[j].Rcs * 100;
-            if (!double.IsFinite(v)) continue;
-            float x0 = m.Px(j + 1 - 0.38), x1 = m.Px(j + 1 + 0.38);
-            float y0 = m.Py(0), y1 = m.Py(Math.Clamp(v, -40, 40));
+            if (!double.IsFinite(v)) { Style.Text(canvas, "no samples", m.Px(0) + 6 * s, yc + 4 * s, 11 * s, Style.Muted); continue; }
+            float x0 = m.Px(0), x1 = m.Px(Math.Clamp(v, -40, 40));
             using var fill = Style.Fill(colours[j]);
-            canvas.DrawRect(new SKRect(x0, Math.Min(y0, y1), x1, Math.Max(y0, y1)), fill);
-            Style.Text(canvas, bins[j].Rf.ToString("0", CultureInfo.InvariantCulture), (x0 + x1) / 2, m.Plot.Top + 16 * s, 11 * s, Style.Ink, SKTextAlign.Center);
+            canvas.DrawRect(new SKRect(Math.Min(x0, x1), yc - 0.36f * rowH, Math.Max(x0, x1), yc + 0.36f * rowH), fill);
+            string rf = bins[j].Rf.ToString("0", CultureInfo.InvariantCulture);
+            if (v >= 0) Style.Text(canvas, rf, x1 + 5 * s, yc + 4 * s, 11 * s, Style.Ink);
+            else Style.Text(canvas, rf, x1 - 5 * s, yc + 4 * s, 11 * s, Style.Ink, SKTextAlign.Right);
         }
-        using (var zero = Style.Stroke(Style.Ink, 1.2f * s)) canvas.DrawLine(m.Plot.Left, m.Py(0), m.Plot.Right, m.Py(0), zero);
-        Style.Text(canvas, "numbers: local fidelity Rf,hj", m.Plot.Left + 4 * s, m.Plot.Top - 8 * s, 12 * s, Style.Muted);
+        using (var zero = Style.Stroke(Style.Ink, 1.2f * s)) canvas.DrawLine(m.Px(0), m.Plot.Top, m.Px(0), m.Plot.Bottom, zero);
+        Style.Text(canvas, "Hue bins", m.Plot.Left - 84 * s, m.Plot.Top - 10 * s, 13 * s, Style.Ink, bold: true);
     }
 
     /// <summary>Display colours of the 16 hue bins: the mean of each bin's colour evaluation samples under the
