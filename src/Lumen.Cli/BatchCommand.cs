@@ -41,7 +41,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
 
     public Command Build()
     {
-        var cmd = new Command("batch", "Check many spectra against a tolerance spec: pass/fail per unit, batch statistics, outliers, Cpk.");
+        var cmd = new Command("batch", "Check many spectra against a tolerance spec: pass/fail per unit, batch statistics, outliers, Ppk with 95 % intervals.");
         _inputs.AddTo(cmd);
         _spec.AddTo(cmd);
         cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads);

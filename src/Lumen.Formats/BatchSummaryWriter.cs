@@ -40,9 +40,9 @@ public static class BatchSummaryWriter
         if (s.Capabilities.Count > 0)
         {
             output.WriteLine();
-            output.WriteLine("Process capability (Cpk = min((USL − mean)/3σ, (mean − LSL)/3σ)):");
+            output.WriteLine("Process performance (Ppk = min((USL − mean)/3s, (mean − LSL)/3s), s = overall SD; 95 % interval after Bissell 1990, approximate):");
             foreach (var c in s.Capabilities)
-                output.WriteLine(string.Create(Inv, $"  {c.Field,-22} mean {G(c.Mean)}, SD {G(c.StandardDeviation)}, Cpk {G(c.Cpk)}"));
+                output.WriteLine(string.Create(Inv, $"  {c.Field,-22} n {c.Count}, mean {G(c.Mean)}, SD {G(c.StandardDeviation)}, Ppk {P(c.Ppk)} (95 %: {P(c.PpkLower95)} to {P(c.PpkUpper95)})"));
         }
         output.WriteLine();
         output.WriteLine(BatchSummary.Caution);
@@ -94,7 +94,8 @@ public static class BatchSummaryWriter
                 w.WriteStartObject(); w.WriteString("field", c.Field);
                 if (c.Lower is { } lo) w.NumberOrNull("min", lo);
                 if (c.Upper is { } hi) w.NumberOrNull("max", hi);
-                w.NumberOrNull("mean", c.Mean); w.NumberOrNull("sd", c.StandardDeviation); w.NumberOrNull("cpk", c.Cpk);
+                w.WriteNumber("n", c.Count); w.NumberOrNull("mean", c.Mean); w.NumberOrNull("sd", c.StandardDeviation);
+                w.NumberOrNull("ppk", c.Ppk); w.NumberOrNull("ppkLower95", c.PpkLower95); w.NumberOrNull("ppkUpper95", c.PpkUpper95);
                 w.WriteEndObject();
             }
             w.WriteEndArray();
@@ -102,6 +103,8 @@ public static class BatchSummaryWriter
             w.WriteEndObject();
         });
     }
+
+    private static string P(double v) => double.IsFinite(v) ? v.ToString("0.00", Inv) : "—";
 
     private static string G(double v) => double.IsFinite(v) ? v.ToString("0.####", Inv) : "—";
 }

@@ -216,8 +216,8 @@ public static class HtmlReport
         sb.Append("</table>");
         if (summary.Capabilities.Count > 0)
         {
-            sb.Append("<h3>Process capability</h3><table><tr><th>field</th><th>limits</th><th>mean</th><th>SD</th><th>Cpk</th></tr>");
-            foreach (var c in summary.Capabilities) sb.Append(Inv, $"<tr><td class=\"t\">{E(c.Field)}</td><td class=\"t\">{F(c.Lower)} … {F(c.Upper)}</td><td>{F(c.Mean)}</td><td>{F(c.StandardDeviation)}</td><td>{F(c.Cpk, "0.00")}</td></tr>");
+            sb.Append("<h3>Process performance</h3><p>Ppk from the overall SD (not Cpk: no subgroups); 95 % interval after Bissell (1990), approximate.</p><table><tr><th>field</th><th>limits</th><th>n</th><th>mean</th><th>SD</th><th>Ppk</th><th>95 % interval</th></tr>");
+            foreach (var c in summary.Capabilities) sb.Append(Inv, $"<tr><td class=\"t\">{E(c.Field)}</td><td class=\"t\">{F(c.Lower)} … {F(c.Upper)}</td><td>{c.Count}</td><td>{F(c.Mean)}</td><td>{F(c.StandardDeviation)}</td><td>{F(c.Ppk, "0.00")}</td><td>{F(c.PpkLower95, "0.00")} – {F(c.PpkUpper95, "0.00")}</td></tr>");
             sb.Append("</table>");
         }
         var ok = items.Where(i => i.Assessment is not null).ToList();

@@ -46,7 +46,12 @@ public class BatchCliTests
             Assert.Subset(lotB, outliers);
             Assert.Superset(lotB, outliers);
             Assert.Contains("not a certification", s.GetProperty("caution").GetString(), StringComparison.Ordinal);
-            Assert.Equal(4, s.GetProperty("capability").GetArrayLength());
+            // Four limited fields plus the chromaticity row (steps from target, one-sided) under the ellipse tolerance.
+            var caps = s.GetProperty("capability").EnumerateArray().ToList();
+            Assert.Equal(5, caps.Count);
+            var steps = caps.Single(c => c.GetProperty("field").GetString() == "steps_from_target");
+            Assert.False(steps.TryGetProperty("min", out _));
+            Assert.True(steps.GetProperty("ppkLower95").GetDouble() < steps.GetProperty("ppk").GetDouble());
         }
         finally { Directory.Delete(dir, true); }
     }

@@ -187,7 +187,7 @@ public class BatchStatisticsTests
     }
 
     [Fact]
-    public void Summary_counts_outliers_spread_and_cpk()
+    public void Summary_counts_outliers_spread_and_ppk()
     {
         var b = new BatchSummaryBuilder(new PreparedSpec(new ToleranceSpec("s", null, new ChromaticityTolerance(ToleranceKind.None, 0), [new FieldLimit("cri.ra", 80, null, 1)])));
         var rng = new Random(3);
@@ -206,6 +206,64 @@ public class BatchStatisticsTests
         Assert.Equal("U17", Assert.Single(s.Outliers).Id);
         Assert.InRange(s.MaxPairwiseDeltaUPrimeVPrime, 0.0195, 0.0206);
         var cap = Assert.Single(s.Capabilities);
-        Assert.Equal((cap.Mean - 80) / (3 * cap.StandardDeviation), cap.Cpk, 9);
+        Assert.Equal((cap.Mean - 80) / (3 * cap.StandardDeviation), cap.Ppk, 9);
+        Assert.Equal(200, cap.Count);
+        Assert.True(cap.PpkLower95 < cap.Ppk && cap.Ppk < cap.PpkUpper95);
+    }
+
+    [Fact]
+    public void Bissell_interval_matches_the_textbook_example()
+    {
+        // From memory: Montgomery, Introduction to Statistical Quality Control, 6th ed., Cpk interval example:
+        // n = 20, estimated index 1.33 → approximate 95 % interval 0.88 … 1.78 (two decimals as printed there).
+        var (lo, hi) = CapabilityIndex.BissellInterval(1.33, 20);
+        Assert.Equal(0.88, lo, 2);
+        Assert.Equal(1.78, hi, 2);
+        // The index itself: one-sided and two-sided forms (common practice).
+        Assert.Equal(1.0, CapabilityIndex.Ppk(10, 1, 7, null), 12);
+        Assert.Equal(0.5, CapabilityIndex.Ppk(10, 1, 7, 11.5), 12);
+        Assert.True(double.IsNaN(CapabilityIndex.Ppk(10, 0, 7, null)));
+        Assert.True(double.IsNaN(CapabilityIndex.BissellInterval(double.NaN, 20).Lower));
+    }
+
+    [Fact]
+    public void Bissell_interval_covers_the_true_index_at_about_the_stated_rate()
+    {
+        // Simulation: normal data with μ = 0, σ = 1, limits −4.5 … +3 → true Ppk = min(3, 4.5)/3 = 1.0.
+        // n = 50 per batch, 4000 batches; the interval is approximate (Bissell 1990), so allow the Monte Carlo
+        // error (±3 SE ≈ ±0.01) plus a small bias of the approximation: coverage in 0.925 … 0.97.
+        var rng = new Random(20261202);
+        int covered = 0, batches = 4000, n = 50;
+        for (int b = 0; b < batches; b++)
+        {
+            var st = new RunningStatistics();
+            for (int i = 0; i < n; i++)
+            {
+                double u1 = 1 - rng.NextDouble(), u2 = rng.NextDouble();
+                st.Add(Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2));
+            }
+            var cap = CapabilityIndex.Of("x", st, -4.5, 3);
+            if (cap.PpkLower95 <= 1.0 && 1.0 <= cap.PpkUpper95) covered++;
+        }
+        Assert.InRange(covered / (double)batches, 0.925, 0.97);
+    }
+
+    [Fact]
+    public void Chromaticity_gets_a_one_sided_ppk_under_an_ellipse_tolerance()
+    {
+        var spec = new PreparedSpec(new ToleranceSpec("s", new ChromaticityTarget(TargetKind.Xy, 0.3805, 0.3768), new ChromaticityTolerance(ToleranceKind.EllipseSteps, 4), []));
+        var b = new BatchSummaryBuilder(spec);
+        var rng = new Random(5);
+        for (int i = 0; i < 100; i++)
+        {
+            var c = Chromaticity.FromXy(0.3805 + 0.002 * (rng.NextDouble() - 0.5), 0.3768 + 0.002 * (rng.NextDouble() - 0.5));
+            var v = spec.Evaluate(c, _ => null);
+            b.AddResult($"U{i}", c, v.Pass, _ => null, v.StepsFromTarget);
+        }
+        var cap = Assert.Single(b.Build().Capabilities);
+        Assert.Equal("steps_from_target", cap.Field);
+        Assert.Null(cap.Lower);
+        Assert.Equal(4, cap.Upper);
+        Assert.Equal((4 - cap.Mean) / (3 * cap.StandardDeviation), cap.Ppk, 9);
     }
 }

@@ -15,7 +15,7 @@ namespace Lumen.BatchStatistics;
 /// <param name="StepsFromTarget">Statistics of steps from the target (when the spec has one).</param>
 /// <param name="StepsFromTargetP95">95th percentile of steps from the target.</param>
 /// <param name="Outliers">Robust chromaticity outliers (median/MAD of Δu′v′ from the median, z &gt; 3.5).</param>
-/// <param name="Capabilities">Cpk per limited field.</param>
+/// <param name="Capabilities">Ppk with its 95 % interval per limited field, and for the steps from the target under an ellipse tolerance.</param>
 public sealed record BatchSummary(
     long RecordsRead, long Results, long Errors, long Passed, long Failed,
     IReadOnlyDictionary<string, RunningStatistics> Statistics,

@@ -10,8 +10,9 @@ namespace Lumen.BatchStatistics;
 /// <remarks>Memory: the spectra are never kept; per result it keeps u′v′ (two floats), the steps from the
 /// target (one float) and the ID as UTF-8 in shared blocks — about 30 bytes a unit, for the percentile, outlier and spread
 /// statistics. Outliers: robust z of the Δu′v′ distance from the coordinate-wise median, with MAD scaled by
-/// 1.4826 and the 3.5 cut-off of Iglewicz and Hoaglin (common practice). Cpk = min((USL − μ)/3σ, (μ − LSL)/3σ)
-/// (common practice).</remarks>
+/// 1.4826 and the 3.5 cut-off of Iglewicz and Hoaglin (common practice). Capability: Ppk from the overall SD with
+/// Bissell's approximate 95 % interval (<see cref="CapabilityIndex"/>), for every limited field and, under an ellipse-steps
+/// tolerance, for the steps from the target against the allowed steps (one-sided).</remarks>
 public sealed class BatchSummaryBuilder
 {
     /// <summary>Fields summarised with mean/SD/min/max.</summary>
@@ -23,6 +24,7 @@ public sealed class BatchSummaryBuilder
     private readonly List<float> _u = [], _v = [], _stepsTarget = [];
     private readonly IdArena _ids = new();
     private readonly StepEllipse? _ellipse; // the spec's step metric (its shape, moved to the batch mean); null without a target
+    private readonly double? _allowedSteps; // the ellipse-steps tolerance, for the chromaticity capability row
     private long _records, _errors, _passed, _failed;
 
     /// <summary>Creates a builder for a batch judged against <paramref name="spec"/>.</summary>
@@ -33,6 +35,7 @@ public sealed class BatchSummaryBuilder
         _limits = spec.Spec.Limits.Select(l => (l.Field, l.Min, l.Max)).ToArray();
         _limited = _limits.Select(l => l.Field).Distinct().ToDictionary(f => f, _ => new RunningStatistics(), StringComparer.Ordinal);
         _ellipse = spec.Ellipse;
+        if (spec.Spec.Target is not null && spec.Spec.Tolerance.Kind == ToleranceKind.EllipseSteps) _allowedSteps = spec.Spec.Tolerance.Value;
     }
 
     /// <summary>Adds one record's outcome: a result with its verdict, or an error.</summary>
@@ -92,15 +95,8 @@ public sealed class BatchSummaryBuilder
         var targetValues = _stepsTarget.Where(float.IsFinite).Select(x => (double)x).ToArray();
         foreach (var x in targetValues) fromTarget.Add(x);
 
-        var caps = _limits.Select(l =>
-        {
-            var s = _limited[l.Field];
-            double sd = s.StandardDeviation, m = s.Mean, cpk = double.PositiveInfinity;
-            if (l.Max is { } hi) cpk = Math.Min(cpk, (hi - m) / (3 * sd));
-            if (l.Min is { } lo) cpk = Math.Min(cpk, (m - lo) / (3 * sd));
-            if (!(sd > 0) || double.IsInfinity(cpk)) cpk = double.NaN;
-            return new Capability(l.Field, l.Min, l.Max, m, sd, cpk);
-        }).ToArray();
+        var caps = _limits.Select(l => CapabilityIndex.Of(l.Field, _limited[l.Field], l.Min, l.Max)).ToList();
+        if (_allowedSteps is { } allowed) caps.Add(CapabilityIndex.Of("steps_from_target", fromTarget, null, allowed));
 
         return new BatchSummary(_records, _records - _errors, _errors, _passed, _failed,
             _stats, mu, mv, MaxPairwise(), fromMean, Percentile(fromMeanValues, 0.95), fromTarget, Percentile(targetValues, 0.95), Outliers(), caps);

@@ -1,10 +1,14 @@
 namespace Lumen.BatchStatistics;
 
-/// <summary>Process capability of one limited field.</summary>
-/// <param name="Field">The result field path (as in <c>ResultFields</c>), e.g. <c>cri.ra</c>.</param>
+/// <summary>Process performance of one limited field over a batch (overall spread: Ppk, not Cpk).</summary>
+/// <param name="Field">The field's name as in the results (<c>ResultFields</c> path such as <c>cri.ra</c>, or
+/// <c>steps_from_target</c> for the chromaticity tolerance).</param>
 /// <param name="Lower">Lower specification limit, or null.</param>
 /// <param name="Upper">Upper specification limit, or null.</param>
+/// <param name="Count">Number of finite values.</param>
 /// <param name="Mean">Mean of the field over the batch, in the field's unit.</param>
-/// <param name="StandardDeviation">Sample standard deviation.</param>
-/// <param name="Cpk">min((USL − μ)/3σ, (μ − LSL)/3σ) over the limits given (common practice); NaN when σ = 0 or fewer than 2 values.</param>
-public sealed record Capability(string Field, double? Lower, double? Upper, double Mean, double StandardDeviation, double Cpk);
+/// <param name="StandardDeviation">Overall sample standard deviation (n − 1).</param>
+/// <param name="Ppk">See <see cref="CapabilityIndex.Ppk"/>; NaN when it cannot be computed.</param>
+/// <param name="PpkLower95">Lower end of the two-sided 95 % interval (<see cref="CapabilityIndex.BissellInterval"/>).</param>
+/// <param name="PpkUpper95">Upper end of the two-sided 95 % interval.</param>
+public sealed record Capability(string Field, double? Lower, double? Upper, long Count, double Mean, double StandardDeviation, double Ppk, double PpkLower95, double PpkUpper95);
