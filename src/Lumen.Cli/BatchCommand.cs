@@ -30,12 +30,12 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     [
         Column<RecordOutcome>.Text("id", o => o.Record.Name, "Unit"),
         Column<RecordOutcome>.Text("status", o => o.Status, "Verdict"),
-        Column<RecordOutcome>.Number("cct_k", o => o.Assessment?.Cct.CctKelvin, "0", "CCT (K)"),
-        Column<RecordOutcome>.Number("duv", o => o.Assessment?.Cct.Duv, "+0.0000;-0.0000;0.0000", "Duv"),
-        Column<RecordOutcome>.Number("steps", o => o.Verdict?.StepsFromTarget, "0.0", "Steps"),
-        Column<RecordOutcome>.Number("ra", o => o.Assessment?.Cri?.Ra, "0.0", "Ra"),
-        Column<RecordOutcome>.Number("r9", o => o.Assessment?.Cri?.R9, "0.0", "R9"),
-        Column<RecordOutcome>.Number("rf", o => o.Assessment?.Fidelity?.Rf, "0.0", "Rf"),
+        AnalysisColumns.Field("cct.kelvin", "0", "CCT (K)"),
+        AnalysisColumns.Field("cct.duv", "+0.0000;-0.0000;0.0000", "Duv"),
+        Column<RecordOutcome>.Number("steps_from_target", o => o.Verdict?.StepsFromTarget, "0.0", "Steps"),
+        AnalysisColumns.Field("cri.ra", "0.0", "Ra"),
+        AnalysisColumns.Field("cri.r9", "0.0", "R9"),
+        AnalysisColumns.Field("fidelity.rf", "0.0", "Rf"),
         Column<RecordOutcome>.Text("failed", o => o.Verdict is { } v ? string.Join(" | ", v.Criteria.Where(c => !c.Pass).Select(c => c.Criterion)) : null, "Failed"),
     ]);
 

@@ -14,16 +14,16 @@ public static class AnalysisColumns
     public static ColumnSchema<RecordOutcome> Table { get; } = new(
     [
         Column<RecordOutcome>.Text("name", o => o.Record.Name, "Name"),
-        Column<RecordOutcome>.Number("cct_k", o => o.Assessment?.Cct.CctKelvin, "0", "CCT (K)"),
-        Column<RecordOutcome>.Number("duv", o => o.Assessment?.Cct.Duv, "+0.0000;-0.0000;0.0000", "Duv"),
-        Column<RecordOutcome>.Number("x", o => o.Assessment?.Chromaticity.SmallX, "0.0000"),
-        Column<RecordOutcome>.Number("y", o => o.Assessment?.Chromaticity.SmallY, "0.0000"),
-        Column<RecordOutcome>.Number("u_prime", o => o.Assessment?.Chromaticity.UPrime, "0.0000", "u'"),
-        Column<RecordOutcome>.Number("v_prime", o => o.Assessment?.Chromaticity.VPrime, "0.0000", "v'"),
-        Column<RecordOutcome>.Number("ra", o => o.Assessment?.Cri?.Ra, "0.0", "Ra"),
-        Column<RecordOutcome>.Number("r9", o => o.Assessment?.Cri?.R9, "0.0", "R9"),
-        Column<RecordOutcome>.Number("rf", o => o.Assessment?.Fidelity?.Rf, "0.0", "Rf"),
-        Column<RecordOutcome>.Number("rg", o => o.Assessment?.Fidelity?.Rg, "0.0", "Rg"),
+        Field("cct.kelvin", "0", "CCT (K)"),
+        Field("cct.duv", "+0.0000;-0.0000;0.0000", "Duv"),
+        Field("chromaticity.x", "0.0000", "x"),
+        Field("chromaticity.y", "0.0000", "y"),
+        Field("chromaticity.uPrime", "0.0000", "u'"),
+        Field("chromaticity.vPrime", "0.0000", "v'"),
+        Field("cri.ra", "0.0", "Ra"),
+        Field("cri.r9", "0.0", "R9"),
+        Field("fidelity.rf", "0.0", "Rf"),
+        Field("fidelity.rg", "0.0", "Rg"),
     ]);
 
     /// <summary>The CSV with a specification: every column of <see cref="Csv"/>, then <c>verdict</c> (pass/fail) and <c>failed</c> (the criteria that failed).</summary>
@@ -31,6 +31,18 @@ public static class AnalysisColumns
 
     /// <summary>The text table with a specification: the table's columns and the verdict.</summary>
     public static ColumnSchema<RecordOutcome> TableWithVerdict { get; } = new([.. Table.Columns, .. VerdictColumns()]);
+
+    /// <summary>A numeric column named by its result-field path and read through <see cref="ResultFields.Get"/>, so a
+    /// quantity has one name in specs, CSV headers, summaries and reports.</summary>
+    /// <param name="path">The field path (must be known to <see cref="ResultFields"/>).</param>
+    /// <param name="format">Number format for text tables.</param>
+    /// <param name="title">Title for text tables, or null for the path.</param>
+    /// <returns>The column.</returns>
+    public static Column<RecordOutcome> Field(string path, string format = "0.####", string? title = null)
+    {
+        if (!ResultFields.IsKnown(path)) throw new ArgumentException($"unknown result field '{path}'", nameof(path));
+        return Column<RecordOutcome>.Number(path, o => o.Assessment is { } a ? ResultFields.Get(a, path) : null, format, title);
+    }
 
     private static IEnumerable<Column<RecordOutcome>> VerdictColumns()
     {
@@ -40,6 +52,7 @@ public static class AnalysisColumns
 
     private static List<Column<RecordOutcome>> BuildCsv()
     {
+        static Column<RecordOutcome> P(string path) => Field(path);
         static Column<RecordOutcome> N(string name, Func<Assessment, double?> f) => Column<RecordOutcome>.Number(name, o => o.Assessment is { } a ? f(a) : null);
         static Column<RecordOutcome> T(string name, Func<Assessment, string?> f) => Column<RecordOutcome>.Text(name, o => o.Assessment is { } a ? f(a) : null);
         var c = new List<Column<RecordOutcome>>
@@ -49,41 +62,41 @@ public static class AnalysisColumns
             Column<RecordOutcome>.Number("column", o => o.Record.Column),
             Column<RecordOutcome>.Text("status", o => o.Assessment is null ? "error" : "ok"),
             T("observer", a => ResultFields.ObserverLabel(a.Observer)),
-            N("X", a => a.Tristimulus.X), N("Y", a => a.Tristimulus.Y), N("Z", a => a.Tristimulus.Z),
-            N("x", a => a.Chromaticity.SmallX), N("y", a => a.Chromaticity.SmallY),
-            N("u", a => a.Chromaticity.U), N("v", a => a.Chromaticity.V),
-            N("u_prime", a => a.Chromaticity.UPrime), N("v_prime", a => a.Chromaticity.VPrime),
-            N("cct_k", a => a.Cct.CctKelvin), N("duv", a => a.Cct.Duv),
+            P("tristimulus.X"), P("tristimulus.Y"), P("tristimulus.Z"),
+            P("chromaticity.x"), P("chromaticity.y"),
+            P("chromaticity.u"), P("chromaticity.v"),
+            P("chromaticity.uPrime"), P("chromaticity.vPrime"),
+            P("cct.kelvin"), P("cct.duv"),
             T("cct_method", a => CctResult.Describe(a.Cct.Method)),
-            N("ra", a => a.Cri?.Ra),
+            P("cri.ra"),
         };
-        for (int i = 0; i < 14; i++) { int k = i; c.Add(N($"r{k + 1}", a => a.Cri?.R[k])); }
+        for (int i = 1; i <= 14; i++) c.Add(P($"cri.r{i}"));
         c.Add(T("cri_reference", a => a.Cri?.Reference.Description));
-        c.Add(N("dc", a => a.Cri?.Dc));
-        c.Add(N("rf", a => a.Fidelity?.Rf));
-        c.Add(N("rg", a => a.Fidelity?.Rg));
-        for (int j = 0; j < 16; j++) { int k = j; c.Add(N($"rf_h{k + 1}", a => a.Fidelity?.HueBins[k].Rf)); }
-        for (int j = 0; j < 16; j++) { int k = j; c.Add(N($"rcs_h{k + 1}", a => a.Fidelity?.HueBins[k].Rcs * 100)); }
-        for (int j = 0; j < 16; j++) { int k = j; c.Add(N($"rhs_h{k + 1}", a => a.Fidelity?.HueBins[k].Rhs)); }
+        c.Add(P("cri.dc"));
+        c.Add(P("fidelity.rf"));
+        c.Add(P("fidelity.rg"));
+        for (int j = 1; j <= 16; j++) c.Add(P($"fidelity.hueBin{j}.rf"));
+        for (int j = 1; j <= 16; j++) c.Add(P($"fidelity.hueBin{j}.rcs"));
+        for (int j = 1; j <= 16; j++) c.Add(P($"fidelity.hueBin{j}.rhs"));
         c.Add(T("fidelity_reference", a => a.Fidelity?.Reference.Description));
-        c.Add(N("ler_lm_per_w", a => a.Photometry?.LerLumensPerWatt));
-        c.Add(N("sp_ratio", a => a.Photometry?.SpRatio));
+        c.Add(P("photometry.ler"));
+        c.Add(P("photometry.spRatio"));
         c.Add(N("photometric_value", a => a.Photometry?.Photometric));
         c.Add(T("photometric_unit", a => a.Photometry?.Quantity is { } q ? Photometer.UnitSymbol(q) : null));
         c.Add(N("radiometric_value", a => a.Photometry?.Radiometric));
         c.Add(T("radiometric_unit", a => a.Photometry?.Quantity is { } q ? Photometer.RadiometricUnitSymbol(q) : null));
-        c.Add(N("mel_efficacy_mw_per_lm", a => a.NonVisual?[0].EfficacyMilliwattsPerLumen));
-        c.Add(N("mel_der", a => a.NonVisual?[0].Der));
-        c.Add(N("mel_edi", a => a.NonVisual?[0].Edi));
-        c.Add(N("sc_der", a => a.NonVisual?[1].Der));
-        c.Add(N("mc_der", a => a.NonVisual?[2].Der));
-        c.Add(N("lc_der", a => a.NonVisual?[3].Der));
-        c.Add(N("rh_der", a => a.NonVisual?[4].Der));
-        c.Add(N("peak_nm", a => a.Spectral?.PeakNm));
-        c.Add(N("centroid_nm", a => a.Spectral?.CentroidNm));
-        c.Add(N("fwhm_nm", a => a.Spectral?.FwhmNm));
-        c.Add(N("dominant_nm", a => a.Spectral?.DominantNm));
-        c.Add(N("purity", a => a.Spectral?.Purity));
+        c.Add(P("nonVisual.melanopic.efficacy"));
+        c.Add(P("nonVisual.melanopic.der"));
+        c.Add(P("nonVisual.melanopic.edi"));
+        c.Add(P("nonVisual.sConeOpic.der"));
+        c.Add(P("nonVisual.mConeOpic.der"));
+        c.Add(P("nonVisual.lConeOpic.der"));
+        c.Add(P("nonVisual.rhodopic.der"));
+        c.Add(P("spectral.peakNm"));
+        c.Add(P("spectral.centroidNm"));
+        c.Add(P("spectral.fwhmNm"));
+        c.Add(P("spectral.dominantNm"));
+        c.Add(P("spectral.purity"));
         c.Add(T("warnings", a => string.Join(" | ", a.Warnings)));
         c.AddRange(ErrorColumns<RecordOutcome>(o => o.Error));
         return c;

@@ -12,17 +12,16 @@ public static class BatchColumns
     public static ColumnSchema<RecordOutcome> For(ToleranceSpec spec)
     {
         ArgumentNullException.ThrowIfNull(spec);
-        static Column<RecordOutcome> N(string name, Func<Assessment, double?> f) => Column<RecordOutcome>.Number(name, o => o.Assessment is { } a ? f(a) : null);
+        static Column<RecordOutcome> F(string path) => AnalysisColumns.Field(path); // batch runs use the 2° observer, so chromaticity.* is the 2° chromaticity
         var c = new List<Column<RecordOutcome>>
         {
             Column<RecordOutcome>.Text("id", o => o.Record.Name),
             Column<RecordOutcome>.Text("location", o => o.Record.Location),
             Column<RecordOutcome>.Text("status", o => o.Status),
             Column<RecordOutcome>.Text("failed", o => o.Verdict is { } v ? string.Join(" | ", v.Criteria.Where(x => !x.Pass).Select(x => x.Criterion)) : null),
-            N("cct_k", a => a.Cct.CctKelvin), N("duv", a => a.Cct.Duv),
-            N("x", a => a.Chromaticity2Degree.SmallX), N("y", a => a.Chromaticity2Degree.SmallY),
-            N("u_prime", a => a.Chromaticity2Degree.UPrime), N("v_prime", a => a.Chromaticity2Degree.VPrime),
-            N("ra", a => a.Cri?.Ra), N("r9", a => a.Cri?.R9), N("rf", a => a.Fidelity?.Rf), N("rg", a => a.Fidelity?.Rg),
+            F("cct.kelvin"), F("cct.duv"),
+            F("chromaticity.x"), F("chromaticity.y"), F("chromaticity.uPrime"), F("chromaticity.vPrime"),
+            F("cri.ra"), F("cri.r9"), F("fidelity.rf"), F("fidelity.rg"),
             Column<RecordOutcome>.Number("steps_from_target", o => o.Verdict?.StepsFromTarget),
             Column<RecordOutcome>.Number("delta_uv_from_target", o => o.Verdict?.DeltaUPrimeVPrimeFromTarget),
         };

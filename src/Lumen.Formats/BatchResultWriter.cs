@@ -63,6 +63,11 @@ public sealed class BatchResultWriter
         _out.Flush();
     }
 
+    /// <summary>The result fields of a JSON row, nested by their paths (<c>cri.r9</c> → <c>"cri": {"r9": …}</c>) so each
+    /// quantity has the name it has in specs and CSV headers.</summary>
+    private static readonly string[] ResultPaths =
+        ["cct.kelvin", "cct.duv", "chromaticity.x", "chromaticity.y", "chromaticity.uPrime", "chromaticity.vPrime", "cri.ra", "cri.r9", "fidelity.rf", "fidelity.rg"];
+
     private static void WriteObject(System.Text.Json.Utf8JsonWriter w, RecordOutcome item, PreparedSpec? prepared)
     {
         w.WriteStartObject();
@@ -72,10 +77,12 @@ public sealed class BatchResultWriter
         if (item.Assessment is { } a && item.Verdict is { } v)
         {
             w.WriteStartObject("result");
-            w.NumberOrNull("cctKelvin", a.Cct.CctKelvin); w.NumberOrNull("duv", a.Cct.Duv);
-            w.NumberOrNull("x", a.Chromaticity2Degree.SmallX); w.NumberOrNull("y", a.Chromaticity2Degree.SmallY);
-            w.NumberOrNull("uPrime", a.Chromaticity2Degree.UPrime); w.NumberOrNull("vPrime", a.Chromaticity2Degree.VPrime);
-            w.NumberOrNull("ra", a.Cri?.Ra); w.NumberOrNull("r9", a.Cri?.R9); w.NumberOrNull("rf", a.Fidelity?.Rf); w.NumberOrNull("rg", a.Fidelity?.Rg);
+            foreach (var group in ResultPaths.GroupBy(p => p[..p.IndexOf('.', StringComparison.Ordinal)], StringComparer.Ordinal))
+            {
+                w.WriteStartObject(group.Key);
+                foreach (var path in group) w.NumberOrNull(path[(group.Key.Length + 1)..], ResultFields.Get(a, path));
+                w.WriteEndObject();
+            }
             w.WriteEndObject();
             w.WriteStartObject("verdict");
             w.WriteBoolean("pass", v.Pass);

@@ -27,22 +27,22 @@ public static class MixWriter
         }
         c.AddRange(
         [
-            Column<MixResult>.Number("x", r => r.Chromaticity.SmallX, "0.0000"),
-            Column<MixResult>.Number("y", r => r.Chromaticity.SmallY, "0.0000"),
-            Column<MixResult>.Number("u_prime", r => r.Chromaticity.UPrime, "0.0000", "u'"),
-            Column<MixResult>.Number("v_prime", r => r.Chromaticity.VPrime, "0.0000", "v'"),
-            Column<MixResult>.Number("cct_k", r => r.Cct.CctKelvin, "0", "CCT (K)"),
-            Column<MixResult>.Number("duv", r => r.Cct.Duv, "+0.0000;-0.0000;0.0000", "Duv"),
+            Column<MixResult>.Number("chromaticity.x", r => r.Chromaticity.SmallX, "0.0000", "x"),
+            Column<MixResult>.Number("chromaticity.y", r => r.Chromaticity.SmallY, "0.0000", "y"),
+            Column<MixResult>.Number("chromaticity.uPrime", r => r.Chromaticity.UPrime, "0.0000", "u'"),
+            Column<MixResult>.Number("chromaticity.vPrime", r => r.Chromaticity.VPrime, "0.0000", "v'"),
+            Column<MixResult>.Number("cct.kelvin", r => r.Cct.CctKelvin, "0", "CCT (K)"),
+            Column<MixResult>.Number("cct.duv", r => r.Cct.Duv, "+0.0000;-0.0000;0.0000", "Duv"),
             Column<MixResult>.Number("delta_u_prime_v_prime", r => r.DeltaUPrimeVPrime, "0.0000", "Δu'v'"),
             Column<MixResult>.Text("reachable", r => r.Reachable ? "yes" : "no"),
             Column<MixResult>.Number("objective_value", r => r.ObjectiveValue, "0.0##", "objective"),
-            Column<MixResult>.Number("ra", r => r.Metrics.Ra, "0.0", "Ra"),
-            Column<MixResult>.Number("r9", r => r.Metrics.R9, "0.0", "R9"),
-            Column<MixResult>.Number("rf", r => r.Metrics.Rf, "0.0", "Rf"),
-            Column<MixResult>.Number("rg", r => r.Metrics.Rg, "0.0", "Rg"),
-            Column<MixResult>.Number("ler_lm_per_w", r => r.Metrics.LerLumensPerWatt, "0", "LER"),
+            Column<MixResult>.Number("cri.ra", r => r.Metrics.Ra, "0.0", "Ra"),
+            Column<MixResult>.Number("cri.r9", r => r.Metrics.R9, "0.0", "R9"),
+            Column<MixResult>.Number("fidelity.rf", r => r.Metrics.Rf, "0.0", "Rf"),
+            Column<MixResult>.Number("fidelity.rg", r => r.Metrics.Rg, "0.0", "Rg"),
+            Column<MixResult>.Number("photometry.ler", r => r.Metrics.LerLumensPerWatt, "0", "LER"),
             Column<MixResult>.Number("relative_output", r => r.Metrics.RelativeOutput, "0.000", "output"),
-            Column<MixResult>.Number("mel_der", r => r.Metrics.MelanopicDer, "0.000", "mel DER"),
+            Column<MixResult>.Number("nonVisual.melanopic.der", r => r.Metrics.MelanopicDer, "0.000", "mel DER"),
             Column<MixResult>.Number("ssi", r => r.Metrics.Ssi, "0", "SSI"),
             Column<MixResult>.Number("iterations", r => r.Iterations, "0"),
         ]);
@@ -114,7 +114,7 @@ public static class MixWriter
         w.NumberOrNull("uPrime", r.Chromaticity.UPrime); w.NumberOrNull("vPrime", r.Chromaticity.VPrime);
         w.WriteEndObject();
         w.WriteStartObject("cct");
-        w.NumberOrNull("kelvin", r.Cct.CctKelvin); w.NumberOrNull("duv", r.Cct.Duv);
+        w.NumberOrNull("kelvin", r.Cct.CctKelvin); w.NumberOrNull("cct.duv", r.Cct.Duv);
         w.WriteEndObject();
         w.WriteStartObject("target");
         w.NumberOrNull("x", r.Target.SmallX); w.NumberOrNull("y", r.Target.SmallY);
@@ -127,7 +127,7 @@ public static class MixWriter
         w.NumberOrNull("value", r.ObjectiveValue);
         w.WriteEndObject();
         w.WriteStartObject("metrics");
-        w.NumberOrNull("ra", r.Metrics.Ra); w.NumberOrNull("r9", r.Metrics.R9); w.NumberOrNull("rf", r.Metrics.Rf); w.NumberOrNull("rg", r.Metrics.Rg);
+        w.NumberOrNull("cri.ra", r.Metrics.Ra); w.NumberOrNull("cri.r9", r.Metrics.R9); w.NumberOrNull("fidelity.rf", r.Metrics.Rf); w.NumberOrNull("fidelity.rg", r.Metrics.Rg);
         w.NumberOrNull("lerLmPerW", r.Metrics.LerLumensPerWatt); w.NumberOrNull("relativeOutput", r.Metrics.RelativeOutput);
         w.NumberOrNull("melanopicDer", r.Metrics.MelanopicDer); w.NumberOrNull("ssi", r.Metrics.Ssi);
         w.WriteEndObject();

@@ -134,8 +134,8 @@ public class BatchEqualsOneByOneTests
                 Assert.Equal(records[i].Name, row.GetProperty("id").GetString());
                 if (records[i].Spectrum is null) { Assert.Equal("error", row.GetProperty("status").GetString()); continue; }
                 var a = Lumen.Analysis.Assessor.Assess(records[i].Spectrum!);
-                Assert.Equal(a.Cct.CctKelvin, row.GetProperty("result").GetProperty("cctKelvin").GetDouble());
-                Assert.Equal(a.Cri!.Ra, row.GetProperty("result").GetProperty("ra").GetDouble());
+                Assert.Equal(a.Cct.CctKelvin, row.GetProperty("result").GetProperty("cct").GetProperty("kelvin").GetDouble());
+                Assert.Equal(a.Cri!.Ra, row.GetProperty("result").GetProperty("cri").GetProperty("ra").GetDouble());
             }
         }
         finally { Directory.Delete(dir, true); }
@@ -164,8 +164,8 @@ public class TargetShownTests
                 var t = v.GetProperty("target");
                 var e = t.GetProperty("ellipse");
                 double a = e.GetProperty("a").GetDouble(), b = e.GetProperty("b").GetDouble(), th = e.GetProperty("thetaDeg").GetDouble() * Math.PI / 180;
-                double dx = row.GetProperty("result").GetProperty("x").GetDouble() - t.GetProperty("x").GetDouble();
-                double dy = row.GetProperty("result").GetProperty("y").GetDouble() - t.GetProperty("y").GetDouble();
+                double dx = row.GetProperty("result").GetProperty("chromaticity").GetProperty("x").GetDouble() - t.GetProperty("x").GetDouble();
+                double dy = row.GetProperty("result").GetProperty("chromaticity").GetProperty("y").GetDouble() - t.GetProperty("y").GetDouble();
                 // The metric of the printed ellipse (docs/methods/conformance.md §2.1).
                 double g11 = Math.Cos(th) * Math.Cos(th) / (a * a) + Math.Sin(th) * Math.Sin(th) / (b * b);
                 double g12 = Math.Sin(th) * Math.Cos(th) * (1 / (a * a) - 1 / (b * b));

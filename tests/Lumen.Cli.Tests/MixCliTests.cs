@@ -37,7 +37,7 @@ public class MixCliTests
             var lines = csv.TrimEnd().Split('\n');
             Assert.Equal(4, lines.Length);
             Assert.Contains("level_red", lines[0], StringComparison.Ordinal);
-            int cct = Array.IndexOf(lines[0].Split(','), "cct_k");
+            int cct = Array.IndexOf(lines[0].Split(','), "cct.kelvin");
             Assert.Equal(3300, double.Parse(lines[3].Split(',')[cct], CultureInfo.InvariantCulture), 0);
             Assert.Contains("<svg", File.ReadAllText(plot), StringComparison.Ordinal);
         }

@@ -190,7 +190,7 @@ public class DelimitedReaderTests
         var header = SplitCsv(lines[0].TrimEnd('\r'));
         var row = SplitCsv(lines[1].TrimEnd('\r'));
         Assert.Equal(header.Length, row.Length);
-        foreach (var c in new[] { "ra", "r1", "r9", "r14", "rf", "rg", "rf_h1", "rcs_h16", "rhs_h8" })
+        foreach (var c in new[] { "cri.ra", "cri.r1", "cri.r9", "cri.r14", "fidelity.rf", "fidelity.rg", "fidelity.hueBin1.rf", "fidelity.hueBin16.rcs", "fidelity.hueBin8.rhs" })
         {
             int i = Array.IndexOf(header, c);
             Assert.True(i >= 0, c);
