@@ -106,6 +106,11 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             return ExitCodes.Interrupted;
         }
 
+        // A CSV file has no place for the target the verdicts used: it goes to a sidecar beside it.
+        if (!json && !OutputTarget.IsStdout(outPath) && spec!.Centre is not null
+            && OutputTarget.WriteText(JsonTarget.SidecarPath(outPath!), stdout, w => JsonTarget.WriteSidecar(w, spec, Path.GetFileName(outPath!))) is { } sidecarFailure)
+            return CommonOptions.OutputFailed(stderr, sidecarFailure);
+
         var summaryTarget = summaryPath ?? (OutputTarget.IsStdout(outPath) ? null : "-");
         bool summaryJson = summaryPath?.EndsWith(".json", StringComparison.OrdinalIgnoreCase) == true;
         void WriteSummary(TextWriter w)

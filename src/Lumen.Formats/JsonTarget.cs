@@ -36,4 +36,28 @@ public static class JsonTarget
         w.StringArray("cautions", spec.Cautions);
         w.WriteEndObject();
     }
+
+    /// <summary>Writes the sidecar that travels with a CSV of verdicts (CSV has no place for it): the results file's
+    /// name, the specification's name and description, and its <c>target</c> as in <see cref="Write"/>.</summary>
+    /// <param name="output">Where to write.</param>
+    /// <param name="spec">The prepared specification the verdicts used.</param>
+    /// <param name="resultsFileName">The CSV file's name.</param>
+    public static void WriteSidecar(TextWriter output, PreparedSpec spec, string resultsFileName)
+    {
+        ArgumentNullException.ThrowIfNull(spec);
+        JsonOutput.Write(output, w =>
+        {
+            w.WriteStartObject();
+            w.WriteString("results", resultsFileName);
+            w.WriteString("spec", spec.Spec.Name);
+            w.WriteString("description", spec.Spec.Description);
+            Write(w, spec);
+            w.WriteEndObject();
+        });
+    }
+
+    /// <summary>The sidecar's path for a CSV results path: <c>NAME.csv</c> → <c>NAME.csv.target.json</c>.</summary>
+    /// <param name="resultsPath">The results path.</param>
+    /// <returns>The sidecar path.</returns>
+    public static string SidecarPath(string resultsPath) => resultsPath + ".target.json";
 }

@@ -148,6 +148,30 @@ public class TargetShownTests
     private static string Example(string f) => Path.Combine(CliTests.RepoRoot, "examples", "batch", f);
 
     [Fact]
+    public void A_csv_of_verdicts_gets_a_target_sidecar_equal_to_the_summarys_target()
+    {
+        var dir = Path.Combine(Path.GetTempPath(), $"lumen-sidecar-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(dir);
+        try
+        {
+            string results = Path.Combine(dir, "r.csv"), summary = Path.Combine(dir, "s.json");
+            CliTests.Run("", "batch", Example("quillfern-dl30-lot-A17.csv"), "--spec", Example("spec-dl30.json"), "-o", results, "--summary", summary);
+            string sidecar = results + ".target.json";
+            Assert.True(File.Exists(sidecar), "the CSV's target sidecar is written beside it");
+            using var side = JsonDocument.Parse(File.ReadAllText(sidecar));
+            using var sum = JsonDocument.Parse(File.ReadAllText(summary));
+            Assert.Equal("r.csv", side.RootElement.GetProperty("results").GetString());
+            var t = side.RootElement.GetProperty("target");
+            var st = sum.RootElement.GetProperty("target");
+            foreach (var k in new[] { "x", "y", "uPrime", "vPrime", "cct", "duv" }) Assert.Equal(st.GetProperty(k).GetDouble(), t.GetProperty(k).GetDouble(), 12);
+            foreach (var k in new[] { "a", "b", "thetaDeg" }) Assert.Equal(st.GetProperty("ellipse").GetProperty(k).GetDouble(), t.GetProperty("ellipse").GetProperty(k).GetDouble(), 12);
+            Assert.Equal(st.GetProperty("cautions").GetRawText(), t.GetProperty("cautions").GetRawText());
+            Assert.Empty(Directory.GetFiles(dir, "*lumen-tmp*", SearchOption.AllDirectories));
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+
+    [Fact]
     public void The_printed_ellipse_reproduces_each_units_steps()
     {
         var dir = Path.Combine(Path.GetTempPath(), $"lumen-target-{Guid.NewGuid():N}");
