@@ -210,27 +210,7 @@ public static class AnalysisWriter
             w.WriteString("whitePoint", sd.WhitePoint);
             w.WriteEndObject();
         }
-        if (item.Verdict is { } v)
-        {
-            w.WriteStartObject("verdict");
-            w.WriteBoolean("pass", v.Pass);
-            w.NumberOrNull("stepsFromTarget", v.StepsFromTarget);
-            w.NumberOrNull("deltaUPrimeVPrimeFromTarget", v.DeltaUPrimeVPrimeFromTarget);
-            w.WriteStartArray("criteria");
-            foreach (var c in v.Criteria)
-            {
-                w.WriteStartObject();
-                w.WriteString("criterion", c.Criterion);
-                w.NumberOrNull("measured", c.Measured);
-                w.WriteString("limit", c.Limit);
-                w.NumberOrNull("margin", c.Margin);
-                w.WriteBoolean("pass", c.Pass);
-                if (c.Note is not null) w.WriteString("note", c.Note);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.WriteEndObject();
-        }
+        if (item.Verdict is { } v) JsonVerdict.Write(w, v, null);
         w.StringArray("warnings", a.Warnings);
         WriteProvenance(w, a.Provenance);
         w.WriteEndObject();

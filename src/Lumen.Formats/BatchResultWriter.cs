@@ -84,25 +84,7 @@ public sealed class BatchResultWriter
                 w.WriteEndObject();
             }
             w.WriteEndObject();
-            w.WriteStartObject("verdict");
-            w.WriteBoolean("pass", v.Pass);
-            w.NumberOrNull("stepsFromTarget", v.StepsFromTarget);
-            w.NumberOrNull("deltaUPrimeVPrimeFromTarget", v.DeltaUPrimeVPrimeFromTarget);
-            w.WriteStartArray("criteria");
-            foreach (var c in v.Criteria)
-            {
-                w.WriteStartObject();
-                w.WriteString("criterion", c.Criterion);
-                w.NumberOrNull("measured", c.Measured);
-                w.WriteString("limit", c.Limit);
-                w.NumberOrNull("margin", c.Margin);
-                w.WriteBoolean("pass", c.Pass);
-                if (c.Note is not null) w.WriteString("note", c.Note);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            if (prepared is not null) JsonTarget.Write(w, prepared);
-            w.WriteEndObject();
+            JsonVerdict.Write(w, v, prepared);
             w.StringArray("warnings", a.Warnings);
         }
         else if (item.Error is { } e) w.Error(e);
