@@ -36,7 +36,7 @@ public static class BatchSummaryWriter
         output.WriteLine();
         output.WriteLine(s.Outliers.Count == 0 ? "Chromaticity outliers (robust z > 3.5): none" : $"Chromaticity outliers (robust z > 3.5): {s.Outliers.Count}");
         foreach (var o in s.Outliers.Take(50)) output.WriteLine(string.Create(Inv, $"  {o.Id}: Δu'v' {o.DeltaUPrimeVPrime:0.00000} from the median, z = {o.RobustZ:0.0}"));
-        if (s.Outliers.Count > 50) output.WriteLine($"  … and {s.Outliers.Count - 50} more (see the results file)");
+        if (s.Outliers.Count > 50) output.WriteLine($"  … and {s.Outliers.Count - 50} more (a JSON summary, --summary NAME.json, lists all)");
         if (s.Capabilities.Count > 0)
         {
             output.WriteLine();

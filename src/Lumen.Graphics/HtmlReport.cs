@@ -189,6 +189,9 @@ public static class HtmlReport
         sb.Append(Inv, $"<tr><td class=\"t\">measured range</td><td class=\"t\">{a.Provenance.MeasuredFirstNm:0.###}–{a.Provenance.MeasuredLastNm:0.###} nm</td></tr></table></section>");
     }
 
+    /// <summary>Most rows of the report's outlier table (largest robust z first); the rest are counted.</summary>
+    public const int OutlierTableLimit = 20;
+
     /// <summary>A batch report: summary, pass/fail table, spread plot, histograms, outliers, per-unit detail.</summary>
     /// <param name="items">Judged records (in input order; the first <see cref="TableLimit"/> are tabled).</param>
     /// <param name="summary">The batch summary.</param>
@@ -236,8 +239,10 @@ public static class HtmlReport
         else
         {
             sb.Append("<table id=\"outliers\"><tr><th>id</th><th>Δu′v′ from median</th><th>robust z</th></tr>");
-            foreach (var o in summary.Outliers.Take(200)) sb.Append(Inv, $"<tr><td class=\"t\">{E(o.Id)}</td><td>{F(o.DeltaUPrimeVPrime, "0.00000")}</td><td>{F(o.RobustZ, "0.0")}</td></tr>");
+            foreach (var o in summary.Outliers.Take(OutlierTableLimit)) sb.Append(Inv, $"<tr><td class=\"t\">{E(o.Id)}</td><td>{F(o.DeltaUPrimeVPrime, "0.00000")}</td><td>{F(o.RobustZ, "0.0")}</td></tr>");
             sb.Append("</table>");
+            if (summary.Outliers.Count > OutlierTableLimit)
+                sb.Append(Inv, $"<p class=\"muted\" id=\"outliers-more\">The {OutlierTableLimit} largest of {summary.Outliers.Count} outliers; {summary.Outliers.Count - OutlierTableLimit} more are listed in the JSON summary (<code>--summary NAME.json</code>).</p>");
         }
         sb.Append("<h2>Units</h2>");
         if (items.Count > TableLimit) sb.Append(Inv, $"<p class=\"muted\">The first {TableLimit} of {items.Count} records; the results file lists all.</p>");

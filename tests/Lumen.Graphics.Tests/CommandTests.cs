@@ -55,6 +55,11 @@ public class CommandTests
             foreach (var id in new[] { "id=\"summary\"", "id=\"locus\"", "id=\"units\"", "id=\"outliers\"", "id=\"hist-cri-ra\"", "id=\"unit-1\"", "not a certification" })
                 Assert.Contains(id, html, StringComparison.Ordinal);
             Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+            // The lot's 23 shifted lot-B units are outliers: the table shows the largest 20 and counts the rest.
+            var table = html[html.IndexOf("id=\"outliers\"", StringComparison.Ordinal)..];
+            table = table[..table.IndexOf("</table>", StringComparison.Ordinal)];
+            Assert.Equal(Lumen.Graphics.HtmlReport.OutlierTableLimit + 1, table.Split("<tr>").Length - 1);
+            Assert.Contains("The 20 largest of 23 outliers; 3 more", html, StringComparison.Ordinal);
         }
         finally { File.Delete(path); }
     }
