@@ -189,6 +189,32 @@ public static class HtmlReport
         sb.Append(Inv, $"<tr><td class=\"t\">measured range</td><td class=\"t\">{a.Provenance.MeasuredFirstNm:0.###}–{a.Provenance.MeasuredLastNm:0.###} nm</td></tr></table></section>");
     }
 
+    /// <summary>The batch histograms: CCT, Duv, Ra, R9, Rf, the steps from the target, and every other limited field,
+    /// each with its specification limits.</summary>
+    private static List<(string Field, string Title, double[] Values, List<(string, double)> Limits)> HistogramPanels(List<RecordOutcome> ok, PreparedSpec spec)
+    {
+        var fields = new List<(string Field, string Title)> { ("cct.kelvin", "CCT (K)"), ("cct.duv", "Duv"), ("cri.ra", "Ra"), ("cri.r9", "R9"), ("fidelity.rf", "Rf") };
+        foreach (var l in spec.Spec.Limits) if (!fields.Exists(f => f.Field == l.Field)) fields.Add((l.Field, l.Field));
+        var panels = fields.Select(f =>
+        {
+            var limits = new List<(string, double)>();
+            foreach (var l in spec.Spec.Limits.Where(l => l.Field == f.Field))
+            {
+                if (l.Min is { } lo) limits.Add((string.Create(Inv, $"min {lo:G6}"), lo));
+                if (l.Max is { } hi) limits.Add((string.Create(Inv, $"max {hi:G6}"), hi));
+            }
+            var values = ok.Select(i => ResultFields.Get(i.Assessment!, f.Field) ?? double.NaN).Where(double.IsFinite).ToArray();
+            return (f.Field, f.Title, values, limits);
+        }).ToList();
+        if (spec.Centre is not null)
+        {
+            var steps = ok.Select(i => i.Verdict?.StepsFromTarget ?? double.NaN).Where(double.IsFinite).ToArray();
+            var limits = spec.Spec.Tolerance.Kind == ToleranceKind.EllipseSteps ? new List<(string, double)> { (string.Create(Inv, $"max {spec.Spec.Tolerance.Value:G6} steps"), spec.Spec.Tolerance.Value) } : [];
+            panels.Add(("steps_from_target", "Steps from target", steps, limits));
+        }
+        return panels;
+    }
+
     /// <summary>Most rows of the report's outlier table (largest robust z first); the rest are counted.</summary>
     public const int OutlierTableLimit = 20;
 
@@ -228,11 +254,8 @@ public static class HtmlReport
         var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree, i.Verdict?.Pass == false ? PointStatus.Fail : PointStatus.Pass)).ToList();
         sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(DiagramSpace.UPrimeVPrime, pts, spec, "Batch spread (CIE 1976 u′v′)")), "locus", "batch chromaticity spread"));
         sb.Append("<div class=\"grid\">");
-        foreach (var (field, title) in new[] { ("cct.kelvin", "CCT (K)"), ("cct.duv", "Duv"), ("cri.ra", "Ra"), ("fidelity.rf", "Rf") })
-        {
-            var values = ok.Select(i => ResultFields.Get(i.Assessment!, field) ?? double.NaN).Where(double.IsFinite).ToArray();
-            sb.Append(InlineSvg(800, 500, (cv, z) => Histogram.Draw(cv, z, values, title), "hist-" + field.Replace('.', '-'), "histogram of " + title));
-        }
+        foreach (var (field, title, values, limits) in HistogramPanels(ok, spec))
+            sb.Append(InlineSvg(800, 500, (cv, z) => Histogram.Draw(cv, z, values, title, limits), "hist-" + field.Replace('.', '-').Replace('_', '-'), "histogram of " + title));
         sb.Append("</div>");
         sb.Append("<h2>Outliers</h2>");
         if (summary.Outliers.Count == 0) sb.Append("<p>No chromaticity outliers (robust z > 3.5).</p>");

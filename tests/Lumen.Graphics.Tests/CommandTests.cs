@@ -60,6 +60,14 @@ public class CommandTests
             table = table[..table.IndexOf("</table>", StringComparison.Ordinal)];
             Assert.Equal(Lumen.Graphics.HtmlReport.OutlierTableLimit + 1, table.Split("<tr>").Length - 1);
             Assert.Contains("The 20 largest of 23 outliers; 3 more", html, StringComparison.Ordinal);
+            // Histograms for R9 and the steps from the target too, each with the spec's limit lines
+            // (spec-dl30.json: Ra ≥ 80, R9 ≥ 0, Rf ≥ 80, |Duv| ≤ 0.006, 3-step ellipse).
+            foreach (var id in new[] { "id=\"hist-cri-r9\"", "id=\"hist-steps-from-target\"" }) Assert.Contains(id, html, StringComparison.Ordinal);
+            string Panel(string id) { var p = html[html.IndexOf(id, StringComparison.Ordinal)..]; return p[..p.IndexOf("</svg>", StringComparison.Ordinal)]; }
+            Assert.Contains("max 3 steps", Panel("id=\"hist-steps-from-target\""), StringComparison.Ordinal);
+            Assert.Contains("min 80", Panel("id=\"hist-cri-ra\""), StringComparison.Ordinal);
+            Assert.Contains("max 0.006", Panel("id=\"hist-cct-duv\""), StringComparison.Ordinal);
+            Assert.DoesNotContain("min", Panel("id=\"hist-cct-kelvin\""), StringComparison.Ordinal);
         }
         finally { File.Delete(path); }
     }
