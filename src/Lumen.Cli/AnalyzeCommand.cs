@@ -105,7 +105,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
             ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(inputs.Records(stdin).Select(Next).ToList(), format, w, parse.GetValue(DetailOption)))
             : OutputTarget.WriteText(outPath, stdout, w =>
             {
-                var writer = new AnalysisStreamWriter(w, format, withVerdict: spec is not null);
+                var writer = new AnalysisStreamWriter(w, format, withVerdict: spec is not null, spec: spec);
                 foreach (var record in inputs.Records(stdin)) writer.Write(Next(record));
                 writer.Complete();
             });

@@ -12,6 +12,7 @@ public sealed class AnalysisStreamWriter
     private readonly TextWriter _out;
     private readonly bool _json;
     private readonly ColumnSchema<RecordOutcome> _csv;
+    private readonly Lumen.Conformance.PreparedSpec? _spec;
     private bool _first = true;
 
     /// <summary>Starts the output: the CSV header, or the opening bracket of the JSON array.</summary>
@@ -19,8 +20,10 @@ public sealed class AnalysisStreamWriter
     /// <param name="format"><see cref="OutputFormat.Json"/> or <see cref="OutputFormat.Csv"/>.</param>
     /// <exception cref="ArgumentException">The format is <see cref="OutputFormat.Text"/>.</exception>
     /// <param name="withVerdict">CSV: add the verdict columns (a specification was given).</param>
-    public AnalysisStreamWriter(TextWriter output, OutputFormat format, bool withVerdict = false)
+    /// <param name="spec">JSON: the specification behind the verdicts, written as each row's <c>verdict.target</c>; null for none.</param>
+    public AnalysisStreamWriter(TextWriter output, OutputFormat format, bool withVerdict = false, Lumen.Conformance.PreparedSpec? spec = null)
     {
+        _spec = spec;
         ArgumentNullException.ThrowIfNull(output);
         if (format == OutputFormat.Text) throw new ArgumentException("The text table is not streamed.", nameof(format));
         _out = output;
@@ -39,7 +42,7 @@ public sealed class AnalysisStreamWriter
         _out.Write(_first ? "\n" : ",\n");
         _first = false;
         using var sw = new StringWriter();
-        JsonOutput.Write(sw, w => AnalysisWriter.WriteRecord(w, item));
+        JsonOutput.Write(sw, w => AnalysisWriter.WriteRecord(w, item, _spec));
         _out.Write(sw.ToString().TrimEnd('\n', '\r'));
     }
 

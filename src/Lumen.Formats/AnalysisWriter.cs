@@ -22,7 +22,7 @@ public static class AnalysisWriter
     public static void Write(IReadOnlyList<RecordOutcome> items, OutputFormat format, TextWriter output, bool detail = false)
     {
         bool verdicts = items.Any(i => i.Verdict is not null);
-        FormattedOutput.Write(items, format, output, WriteRecord, verdicts ? AnalysisColumns.CsvWithVerdict : AnalysisColumns.Csv, (all, o) =>
+        FormattedOutput.Write(items, format, output, (w, item) => WriteRecord(w, item), verdicts ? AnalysisColumns.CsvWithVerdict : AnalysisColumns.Csv, (all, o) =>
         {
             WriteText(all, o);
             if (detail) WriteDetail(all, o);
@@ -95,7 +95,8 @@ public static class AnalysisWriter
     /// <summary>Writes one record as a JSON object (the <c>analyze</c> JSON contract).</summary>
     /// <param name="w">The JSON writer.</param>
     /// <param name="item">The outcome.</param>
-    public static void WriteRecord(Utf8JsonWriter w, RecordOutcome item)
+    /// <param name="spec">The specification behind the verdict, for <c>verdict.target</c>; null to leave it out.</param>
+    public static void WriteRecord(Utf8JsonWriter w, RecordOutcome item, Lumen.Conformance.PreparedSpec? spec = null)
     {
         ArgumentNullException.ThrowIfNull(w);
         ArgumentNullException.ThrowIfNull(item);
@@ -210,7 +211,7 @@ public static class AnalysisWriter
             w.WriteString("whitePoint", sd.WhitePoint);
             w.WriteEndObject();
         }
-        if (item.Verdict is { } v) JsonVerdict.Write(w, v, null);
+        if (item.Verdict is { } v) JsonVerdict.Write(w, v, spec);
         w.StringArray("warnings", a.Warnings);
         WriteProvenance(w, a.Provenance);
         w.WriteEndObject();

@@ -35,6 +35,11 @@ public class QuickVerdictTests
             var va = a.RootElement.EnumerateArray().Select(r => r.GetProperty("verdict").GetProperty("pass").GetBoolean()).ToArray();
             var vb = b.RootElement.EnumerateArray().Select(r => r.GetProperty("verdict").GetProperty("pass").GetBoolean()).ToArray();
             Assert.Equal(va, vb);
+            // Each analyze JSON row states the target its verdict used, the same from options and from the file.
+            var ta = a.RootElement[0].GetProperty("verdict").GetProperty("target");
+            var tb = b.RootElement[0].GetProperty("verdict").GetProperty("target");
+            Assert.Equal(ta.GetRawText(), tb.GetRawText());
+            Assert.True(ta.GetProperty("ellipse").GetProperty("a").GetDouble() > 0);
             Assert.Contains(false, va);
             Assert.Contains(true, va);
         }
