@@ -32,7 +32,7 @@ public static class AnalysisColumns
     /// <summary>The text table with a specification: the table's columns and the verdict.</summary>
     public static ColumnSchema<RecordOutcome> TableWithVerdict { get; } = new([.. Table.Columns, .. VerdictColumns()]);
 
-    /// <summary>A numeric column named by its result-field path and read through <see cref="ResultFields.Get"/>, so a
+    /// <summary>A numeric column named by its result-field path and read through <see cref="ResultFields.Accessor"/> (resolved once), so a
     /// quantity has one name in specs, CSV headers, summaries and reports.</summary>
     /// <param name="path">The field path (must be known to <see cref="ResultFields"/>).</param>
     /// <param name="format">Number format for text tables.</param>
@@ -40,8 +40,8 @@ public static class AnalysisColumns
     /// <returns>The column.</returns>
     public static Column<RecordOutcome> Field(string path, string format = "0.####", string? title = null)
     {
-        if (!ResultFields.IsKnown(path)) throw new ArgumentException($"unknown result field '{path}'", nameof(path));
-        return Column<RecordOutcome>.Number(path, o => o.Assessment is { } a ? ResultFields.Get(a, path) : null, format, title);
+        var get = ResultFields.Accessor(path);
+        return Column<RecordOutcome>.Number(path, o => o.Assessment is { } a ? get(a) : null, format, title);
     }
 
     private static IEnumerable<Column<RecordOutcome>> VerdictColumns()

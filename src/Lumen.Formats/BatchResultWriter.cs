@@ -65,8 +65,11 @@ public sealed class BatchResultWriter
 
     /// <summary>The result fields of a JSON row, nested by their paths (<c>cri.r9</c> → <c>"cri": {"r9": …}</c>) so each
     /// quantity has the name it has in specs and CSV headers.</summary>
-    private static readonly string[] ResultPaths =
-        ["cct.kelvin", "cct.duv", "chromaticity.x", "chromaticity.y", "chromaticity.uPrime", "chromaticity.vPrime", "cri.ra", "cri.r9", "fidelity.rf", "fidelity.rg"];
+    private static readonly (string Group, (string Name, Func<Assessment, double?> Get)[] Fields)[] ResultGroups =
+        new[] { "cct.kelvin", "cct.duv", "chromaticity.x", "chromaticity.y", "chromaticity.uPrime", "chromaticity.vPrime", "cri.ra", "cri.r9", "fidelity.rf", "fidelity.rg" }
+            .GroupBy(p => p[..p.IndexOf('.', StringComparison.Ordinal)], StringComparer.Ordinal)
+            .Select(g => (g.Key, g.Select(p => (p[(g.Key.Length + 1)..], ResultFields.Accessor(p))).ToArray()))
+            .ToArray();
 
     private static void WriteObject(System.Text.Json.Utf8JsonWriter w, RecordOutcome item, PreparedSpec? prepared)
     {
@@ -77,10 +80,10 @@ public sealed class BatchResultWriter
         if (item.Assessment is { } a && item.Verdict is { } v)
         {
             w.WriteStartObject("result");
-            foreach (var group in ResultPaths.GroupBy(p => p[..p.IndexOf('.', StringComparison.Ordinal)], StringComparer.Ordinal))
+            foreach (var (group, fields) in ResultGroups)
             {
-                w.WriteStartObject(group.Key);
-                foreach (var path in group) w.NumberOrNull(path[(group.Key.Length + 1)..], ResultFields.Get(a, path));
+                w.WriteStartObject(group);
+                foreach (var (name, get) in fields) w.NumberOrNull(name, get(a));
                 w.WriteEndObject();
             }
             w.WriteEndObject();

@@ -50,6 +50,14 @@ public class SpecReaderTests
     }
 
     [Fact]
+    public void A_column_for_an_unknown_field_is_refused_when_the_schema_is_built()
+    {
+        // Writers resolve each field's reader once; a misspelt path fails at once, not as an empty column.
+        Assert.Throws<ArgumentException>(() => Lumen.Formats.AnalysisColumns.Field("cri.r[9]"));
+        Assert.Equal("cri.r9", Lumen.Formats.AnalysisColumns.Field("cri.r9").Name);
+    }
+
+    [Fact]
     public void Every_field_numbered_by_the_trade_resolves_from_1()
     {
         for (int i = 1; i <= 14; i++) Assert.True(Lumen.Analysis.ResultFields.IsKnown($"cri.r{i}"), $"cri.r{i}");

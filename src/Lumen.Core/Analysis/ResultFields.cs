@@ -29,6 +29,13 @@ public static class ResultFields
     public static double? Get(Assessment a, string path) =>
         Fields.TryGetValue(path, out var f) ? f(a) : null;
 
+    /// <summary>The reader of a known field, resolved once (for writers that read the same field from every record).</summary>
+    /// <param name="path">A known field path such as <c>cri.r9</c>.</param>
+    /// <returns>The function giving the field's value (null when not computed).</returns>
+    /// <exception cref="ArgumentException">The path is unknown.</exception>
+    public static Func<Assessment, double?> Accessor(string path) =>
+        Fields.TryGetValue(path, out var f) ? f : throw new ArgumentException($"unknown result field '{path}'", nameof(path));
+
     /// <summary>
     /// For a path in the 0-based index syntax of earlier versions (<c>cri.r[8]</c>, <c>fidelity.hueBins[0].rcs</c>,
     /// <c>fidelity.rfCes[4]</c>), the 1-based field it meant (<c>cri.r9</c>, <c>fidelity.hueBin1.rcs</c>, <c>fidelity.rfCes5</c>); else null.
