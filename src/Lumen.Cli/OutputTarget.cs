@@ -80,6 +80,7 @@ internal static class OutputTarget
         {
             return $"cannot write '{path}': {ex.Message}";
         }
+        if (IsDevice(full)) return WriteInPlace(path, full, write);
         try
         {
             using (var stream = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None, 1 << 16))
@@ -99,6 +100,31 @@ internal static class OutputTarget
         {
             TryDelete(temp);
             throw;
+        }
+    }
+
+    /// <summary>
+    /// True for an existing device or process path (<c>/dev/…</c>, <c>/proc/…</c>: /dev/null, /dev/full, /dev/stdout,
+    /// a terminal, a process-substitution pipe). Renaming a temporary file over such a path would replace the device with
+    /// a plain file (as root it succeeds), so these are written in place; there is no file content to keep intact.
+    /// .NET's public file API does not tell a device from a regular file, hence the path test.
+    /// </summary>
+    internal static bool IsDevice(string full) =>
+        !OperatingSystem.IsWindows() && File.Exists(full)
+        && (full.StartsWith("/dev/", StringComparison.Ordinal) || full.StartsWith("/proc/", StringComparison.Ordinal));
+
+    private static string? WriteInPlace(string path, string full, Action<Stream> write)
+    {
+        try
+        {
+            using var stream = new FileStream(full, FileMode.Open, FileAccess.Write, FileShare.ReadWrite, 1 << 16);
+            write(stream);
+            stream.Flush();
+            return null;
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            return $"cannot write '{path}': {ex.Message}";
         }
     }
 

@@ -148,6 +148,21 @@ public class TargetShownTests
     private static string Example(string f) => Path.Combine(CliTests.RepoRoot, "examples", "batch", f);
 
     [Fact]
+    public void A_device_as_output_is_written_in_place_never_replaced()
+    {
+        // Found in review: as root, the atomic rename replaced /dev/full with a plain file. A device target is written
+        // in place: /dev/full reports a full disk (exit 4) and stays a device; /dev/null gets no sidecar beside it.
+        if (!File.Exists("/dev/full") || OperatingSystem.IsWindows()) return;
+        var (code, _, stderr) = CliTests.Run("", "batch", Example("quillfern-dl30-lot-A17.csv"), "--spec", Example("spec-dl30.json"), "-o", "/dev/full", "--summary", "/dev/null");
+        Assert.Equal(ExitCodes.OutputError, code);
+        Assert.Contains("cannot write '/dev/full'", stderr, StringComparison.Ordinal);
+        Assert.Equal(0, new FileInfo("/dev/full").Length); // a plain file would hold the rows
+        Assert.Throws<IOException>(() => File.WriteAllText("/dev/full", "x"));
+        Assert.Equal(ExitCodes.InputErrors, CliTests.Run("", "batch", Example("quillfern-dl30-lot-A17.csv"), "--spec", Example("spec-dl30.json"), "-o", "/dev/null", "--summary", "/dev/null").Code);
+        Assert.False(File.Exists("/dev/null.target.json"));
+    }
+
+    [Fact]
     public void A_csv_of_verdicts_gets_a_target_sidecar_equal_to_the_summarys_target()
     {
         var dir = Path.Combine(Path.GetTempPath(), $"lumen-sidecar-{Guid.NewGuid():N}");
