@@ -18,6 +18,8 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     public Option<string?> Out { get; } = OutputTarget.Option("Results file, one row per input record (.json for JSON, else CSV); default: CSV on standard output.");
     public Option<string?> Summary { get; } = new("--summary") { Description = "Summary file (.json for JSON, else text); default: standard output after a results file, or standard error." };
     public Option<int> Threads { get; } = new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
+    public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Metadata column (e.g. lot, station) or preamble key: a summary per value, and the subgroups of Cpk unless --subgroup-size is given." };
+    public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Consecutive results per subgroup for Cpk (within-subgroup SD), at least 2." };
 
     /// <summary>Records computed per parallel chunk (input order is kept).</summary>
     internal const int ChunkSize = 512;
@@ -44,7 +46,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         var cmd = new Command("batch", "Check many spectra against a tolerance spec: pass/fail per unit, batch statistics, outliers, Ppk with 95 % intervals.");
         _inputs.AddTo(cmd);
         _spec.AddTo(cmd);
-        cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads);
+        cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads); cmd.Add(GroupBy); cmd.Add(SubgroupSize);
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -59,6 +61,14 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             if (OutputTarget.ConflictWithInputs(p, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen: {conflict}."); return ExitCodes.UsageError; }
         int threads = Math.Max(1, parse.GetValue(Threads));
         bool json = outPath?.EndsWith(".json", StringComparison.OrdinalIgnoreCase) == true;
+        if (parse.GetValue(SubgroupSize) is < 2) { stderr.WriteLine("lumen: --subgroup-size must be at least 2 (a subgroup of one has no spread)."); return ExitCodes.UsageError; }
+        var grouping = new BatchSummaryOptions(parse.GetValue(GroupBy), parse.GetValue(SubgroupSize));
+        var metadataKeys = inputs.Files.SelectMany(f => SpectrumFiles.MetadataKeys(f, inputs.Layout)).Distinct(StringComparer.Ordinal).ToArray();
+        if (grouping.GroupBy is { } by && metadataKeys.Length > 0 && !metadataKeys.Contains(by, StringComparer.Ordinal) && !inputs.Files.Contains("-"))
+        {
+            stderr.WriteLine($"lumen: --group-by '{by}' is not a metadata column or preamble key of the inputs; they have: {string.Join(", ", metadataKeys)}.");
+            return ExitCodes.UsageError;
+        }
 
         BatchSummary? summary = null;
         string? failure;
@@ -67,7 +77,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             // At a terminal with no -o: a readable verdict table (failures first), not a wide CSV; -o - or a pipe gives CSV.
             var shown = new List<RecordOutcome>();
             int passes = 0;
-            summary = Run(inputs, spec!, new BatchResultWriter(TextWriter.Null, json, spec!), threads, o =>
+            summary = Run(inputs, spec!, new BatchResultWriter(TextWriter.Null, json, spec!), new BatchSummaryBuilder(spec!, grouping), threads, o =>
             {
                 if (o.Status == "pass" && ++passes > TerminalPassRows) return;
                 if (shown.Count < TerminalRowLimit) shown.Add(o);
@@ -90,9 +100,22 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         {
             failure = OutputTarget.WriteText(outPath, stdout, w =>
             {
-                var writer = new BatchResultWriter(w, json, spec!);
-                summary = Run(inputs, spec!, writer, threads);
-                writer.Complete();
+                // Rows stream to a scratch file; once the batch is complete, the copy adds each row's robust z and
+                // outlier flag, which need the whole batch.
+                var builder = new BatchSummaryBuilder(spec!, grouping);
+                string scratch = Path.Combine(Path.GetTempPath(), $"lumen-rows-{Guid.NewGuid():N}.tmp");
+                try
+                {
+                    using (var rows = new StreamWriter(scratch, false, new UTF8Encoding(false), 1 << 16))
+                    {
+                        var writer = new BatchResultWriter(rows, json, spec!, metadataKeys);
+                        summary = Run(inputs, spec!, writer, builder, threads);
+                        writer.Complete();
+                    }
+                    using var back = new StreamReader(scratch, Encoding.UTF8, false, 1 << 16);
+                    OutlierColumns.Copy(back, w, json, builder.RobustZ, BatchSummaryBuilder.OutlierZ);
+                }
+                finally { File.Delete(scratch); }
             }, partial: () => interrupt.IsCancellationRequested);
         }
         catch (BatchWriteException ex) { failure = ex.Message; }
@@ -125,10 +148,9 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     }
 
     /// <summary>Reads, assesses and judges every record, writing rows in input order; memory stays flat.</summary>
-    internal BatchSummary Run(InputSelection inputs, PreparedSpec spec, BatchResultWriter writer, int threads, Action<RecordOutcome>? observe = null)
+    internal BatchSummary Run(InputSelection inputs, PreparedSpec spec, BatchResultWriter writer, BatchSummaryBuilder builder, int threads, Action<RecordOutcome>? observe = null)
     {
         var options = new AssessmentOptions(Metrics: spec.RequiredMetrics);
-        var builder = new BatchSummaryBuilder(spec);
         var clock = Stopwatch.StartNew();
         long done = 0;
         var progress = new ReadProgress();

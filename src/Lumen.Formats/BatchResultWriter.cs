@@ -7,7 +7,9 @@ namespace Lumen.Formats;
 public sealed class BatchResultWriter
 {
     private readonly TextWriter _out;
-    private readonly ColumnSchema<RecordOutcome>? _csv;
+    private readonly bool _json;
+    private readonly IReadOnlyList<string> _metadataKeys;
+    private ColumnSchema<RecordOutcome>? _csv;
     private readonly PreparedSpec? _prepared;
     private bool _first = true;
 
@@ -24,19 +26,27 @@ public sealed class BatchResultWriter
     /// <param name="output">Destination.</param>
     /// <param name="json">JSON instead of CSV.</param>
     /// <param name="prepared">The prepared specification.</param>
-    public BatchResultWriter(TextWriter output, bool json, PreparedSpec prepared)
+    /// <param name="metadataKeys">Metadata keys known before the first record (from the input files' headers); the first
+    /// record's keys are added to them, and the CSV header is written with the first record.</param>
+    public BatchResultWriter(TextWriter output, bool json, PreparedSpec prepared, IReadOnlyList<string>? metadataKeys = null)
     {
         ArgumentNullException.ThrowIfNull(output);
         ArgumentNullException.ThrowIfNull(prepared);
-        var spec = prepared.Spec;
         _prepared = prepared;
         _out = output;
+        _json = json;
+        _metadataKeys = metadataKeys ?? [];
         if (json) _out.WriteLine("[");
-        else
-        {
-            _csv = BatchColumns.For(spec);
-            _csv.WriteCsvHeader(_out);
-        }
+    }
+
+    /// <summary>The CSV schema, made (and its header written) with the first record, whose metadata keys it includes.</summary>
+    private ColumnSchema<RecordOutcome> Csv(RecordOutcome? first)
+    {
+        if (_csv is not null) return _csv;
+        var keys = _metadataKeys.Concat(first?.Record.Metadata.Select(kv => kv.Key) ?? []).Distinct(StringComparer.Ordinal).ToArray();
+        _csv = BatchColumns.For(_prepared!.Spec, keys);
+        _csv.WriteCsvHeader(_out);
+        return _csv;
     }
 
     /// <summary>Writes one record.</summary>
@@ -44,7 +54,7 @@ public sealed class BatchResultWriter
     public void Write(RecordOutcome item)
     {
         ArgumentNullException.ThrowIfNull(item);
-        if (_csv is not null) { _csv.WriteCsvRow(_out, item); return; }
+        if (!_json) { Csv(item).WriteCsvRow(_out, item); return; }
         if (!_first) _out.WriteLine(",");
         _first = false;
         using var sw = new StringWriter();
@@ -55,7 +65,8 @@ public sealed class BatchResultWriter
     /// <summary>Finishes the output (the closing bracket of a JSON array) and flushes it.</summary>
     public void Complete()
     {
-        if (_csv is null)
+        if (!_json) Csv(null);
+        else
         {
             _out.WriteLine();
             _out.WriteLine("]");
@@ -76,6 +87,9 @@ public sealed class BatchResultWriter
         w.WriteStartObject();
         w.WriteString("id", item.Record.Name);
         w.WriteString("location", item.Record.Location);
+        w.WriteStartObject("metadata");
+        foreach (var (key, value) in item.Record.Metadata) w.WriteString(key, value);
+        w.WriteEndObject();
         w.WriteString("status", item.Status);
         if (item.Assessment is { } a && item.Verdict is { } v)
         {

@@ -58,6 +58,7 @@ public static class DelimitedSpectrumReader
         ReadDiagnostic?[]? columnErrors = null;
         ReadDiagnostic? fileError = null;
         int lineNo = 0, lastLine = 0;
+        var preamble = new List<KeyValuePair<string, string>>();
         string? line;
         while ((line = reader.ReadLine()) is not null)
         {
@@ -74,6 +75,7 @@ public static class DelimitedSpectrumReader
                     if (SpectralUnits.TryParse(text, out var u)) declaredUnit ??= u;
                     else fileError ??= new ReadDiagnostic(source, lineNo, 1, $"unknown unit '{text}'; expected relative, W/m2/nm, W/sr/m2/nm, W/sr/nm or W/nm");
                 }
+                else if (wavelengths is null && Preamble.TryParse(trimmed, out var key, out var value)) preamble.Add(new(key, value));
                 continue;
             }
             if (fileError is not null) { lastLine = lineNo; continue; }
@@ -150,23 +152,24 @@ public static class DelimitedSpectrumReader
 
         var records = new List<InputRecord>(columnCount - 1);
         var finalUnit = declaredUnit ?? SpectralUnit.Relative;
+        var metadata = preamble.Count == 0 ? [] : Preamble.Merge(preamble);
         for (int c = 1; c < columnCount; c++)
         {
             string name = header is not null && c < header.Length && header[c].Length > 0 ? header[c] : $"{stem}#{c}";
             var error = fileError ?? columnErrors![c];
             if (error is not null)
             {
-                records.Add(new ErrorRecord(source, c + 1, name, error));
+                records.Add(new ErrorRecord(source, c + 1, name, error) { Metadata = metadata });
                 continue;
             }
             try
             {
                 var s = new Spectrum(wavelengths!.ToArray(), values![c].ToArray(), finalUnit, name, new SpectrumOrigin(source, c + 1) { Layout = "column layout (wavelengths down the first column, one spectrum per column)" });
-                records.Add(new SpectrumRecord(source, c + 1, name, s));
+                records.Add(new SpectrumRecord(source, c + 1, name, s) { Metadata = metadata });
             }
             catch (InvalidSpectrumException ex)
             {
-                records.Add(new ErrorRecord(source, c + 1, name, new ReadDiagnostic(source, lastLine, c + 1, ex.Message)));
+                records.Add(new ErrorRecord(source, c + 1, name, new ReadDiagnostic(source, lastLine, c + 1, ex.Message)) { Metadata = metadata });
             }
         }
         return records;

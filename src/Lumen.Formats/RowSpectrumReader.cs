@@ -66,6 +66,22 @@ public static class RowSpectrumReader
         return null;
     }
 
+    /// <summary>The metadata column names of a row-layout header: its ID/metadata cells after the first (the ID), an empty
+    /// one named <c>columnK</c>; empty when the row is not a row-layout header.</summary>
+    /// <param name="headerRow">The header row.</param>
+    /// <returns>The names, in order.</returns>
+    public static IReadOnlyList<string> MetadataNames(string headerRow)
+    {
+        ArgumentNullException.ThrowIfNull(headerRow);
+        char d = DelimitedSpectrumReader.DetectDelimiter(headerRow);
+        var header = Cells(headerRow, d);
+        int k = WavelengthStart(header, d);
+        if (k <= 1) return [];
+        return Enumerable.Range(1, k - 1).Select(i => MetadataName(header, i)).ToArray();
+    }
+
+    private static string MetadataName(string[] header, int i) => header[i].Length > 0 ? header[i] : $"column{i + 1}";
+
     /// <summary>Index of the first wavelength cell of a row-layout header, or -1.</summary>
     private static int WavelengthStart(string[] cells, char d)
     {
@@ -102,6 +118,9 @@ public static class RowSpectrumReader
         char d = ',';
         string? line;
         int lineNo = 0, rows = 0;
+        var preamble = new List<KeyValuePair<string, string>>();
+        string[] metadataNames = [];
+        IReadOnlyList<KeyValuePair<string, string>>? preambleOnly = null;
         while ((line = reader.ReadLine()) is not null)
         {
             lineNo++;
@@ -119,6 +138,7 @@ public static class RowSpectrumReader
                     }
                     declared ??= u;
                 }
+                else if (Preamble.TryParse(t, out var key, out var value)) preamble.Add(new(key, value));
                 continue;
             }
             if (wavelengths is null)
@@ -138,6 +158,8 @@ public static class RowSpectrumReader
                     yield break;
                 }
                 expectedCells = header.Length;
+                metadataNames = new string[idColumns];
+                for (int i = 1; i < idColumns; i++) metadataNames[i] = MetadataName(header, i);
                 wavelengths = new double[header.Length - idColumns];
                 for (int i = 0; i < wavelengths.Length; i++) DelimitedSpectrumReader.TryParseNumber(header[idColumns + i], d, out wavelengths[i]);
                 continue;
@@ -154,26 +176,36 @@ public static class RowSpectrumReader
         {
             var cells = Cells(row, d);
             string name = idColumns > 0 && cells.Length > 0 && cells[0].Length > 0 ? cells[0] : $"{stem}:{ln}";
+            var metadata = Metadata(cells);
             if (cells.Length != expectedCells)
                 return new ErrorRecord(source, 0, name, new ReadDiagnostic(source, ln, Math.Min(cells.Length, expectedCells) + 1,
-                    $"ragged row: expected {expectedCells} cells, found {cells.Length}")) { Line = ln };
+                    $"ragged row: expected {expectedCells} cells, found {cells.Length}")) { Line = ln, Metadata = metadata };
             var values = new double[wavelengths!.Length];
             for (int i = 0; i < values.Length; i++)
             {
                 var cell = cells[idColumns + i];
                 if (!DelimitedSpectrumReader.TryParseNumber(cell, d, out values[i]))
                     return new ErrorRecord(source, 0, name, new ReadDiagnostic(source, ln, idColumns + i + 1,
-                        cell.Length == 0 ? "empty cell; expected a number" : $"'{(cell.Length > 24 ? cell[..21] + "..." : cell)}' is not a number; expected a finite decimal number")) { Line = ln };
+                        cell.Length == 0 ? "empty cell; expected a number" : $"'{(cell.Length > 24 ? cell[..21] + "..." : cell)}' is not a number; expected a finite decimal number")) { Line = ln, Metadata = metadata };
             }
             try
             {
                 var s = new Spectrum(wavelengths, values, declared ?? SpectralUnit.Relative, name, new SpectrumOrigin($"{source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" });
-                return new SpectrumRecord(source, 0, name, s) { Line = ln };
+                return new SpectrumRecord(source, 0, name, s) { Line = ln, Metadata = metadata };
             }
             catch (InvalidSpectrumException ex)
             {
-                return new ErrorRecord(source, 0, name, new ReadDiagnostic(source, ln, 1, ex.Message)) { Line = ln };
+                return new ErrorRecord(source, 0, name, new ReadDiagnostic(source, ln, 1, ex.Message)) { Line = ln, Metadata = metadata };
             }
+        }
+
+        // The preamble, then this row's metadata cells (those it has: a ragged row keeps what it carries).
+        IReadOnlyList<KeyValuePair<string, string>> Metadata(string[] cells)
+        {
+            if (idColumns <= 1) return preambleOnly ??= preamble.Count == 0 ? [] : Preamble.Merge(preamble);
+            var entries = new List<KeyValuePair<string, string>>(preamble);
+            for (int i = 1; i < idColumns && i < cells.Length; i++) entries.Add(new(metadataNames[i], cells[i]));
+            return Preamble.Merge(entries);
         }
     }
 }

@@ -161,6 +161,43 @@ public static class SpectrumFiles
         }
     }
 
+    /// <summary>
+    /// The metadata keys a file's records carry — its preamble keys, then the row layout's metadata column names — read
+    /// from the lines up to its header (every record of a file has the same keys). Empty for standard input (which
+    /// cannot be read twice) and for files that cannot be read.
+    /// </summary>
+    /// <param name="path">File path.</param>
+    /// <param name="layout">Layout, or null to detect it.</param>
+    /// <returns>Keys in file order, unique.</returns>
+    public static IReadOnlyList<string> MetadataKeys(string path, TableLayout? layout = null)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        if (path == "-" || !File.Exists(path)) return [];
+        var keys = new List<string>();
+        try
+        {
+            using var reader = new LineReader(new StreamReader(path, Encoding.UTF8, detectEncodingFromByteOrderMarks: true));
+            string? line;
+            while ((line = reader.ReadLine()) is not null)
+            {
+                var t = line.Trim().TrimStart('\uFEFF');
+                if (t.Length == 0) continue;
+                if (t[0] == '#')
+                {
+                    if (Preamble.TryParse(t, out var key, out _)) keys.Add(key);
+                    continue;
+                }
+                if ((layout ?? RowSpectrumReader.DetectLayout(t)) == TableLayout.Rows) keys.AddRange(RowSpectrumReader.MetadataNames(t));
+                break;
+            }
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or LineTooLongException or DecoderFallbackException)
+        {
+            return []; // the read itself reports the problem as an error record
+        }
+        return keys.Distinct(StringComparer.Ordinal).ToArray();
+    }
+
     /// <summary>Detects the layout from the first non-comment row of a text.</summary>
     /// <param name="reader">The text (consumed up to that row).</param>
     /// <returns>The layout (columns when the text is empty).</returns>

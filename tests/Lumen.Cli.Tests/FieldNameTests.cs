@@ -12,7 +12,8 @@ public class FieldNameTests
         "name", "source", "column", "status", "observer", "cct_method", "cri_reference", "fidelity_reference",
         "photometric_value", "photometric_unit", "radiometric_value", "radiometric_unit", "warnings",
         "error_line", "error_column", "error", "id", "location", "failed", "verdict",
-        "steps_from_target", "delta_uv_from_target",
+        "steps_from_target", "delta_uv_from_target", "robust_z", "outlier",
+        "lot", // the example lot's metadata column, carried into batch results
     };
 
     private static readonly string[] CriterionSuffixes = ["_value", "_limit", "_margin", "_pass"];

@@ -91,6 +91,6 @@ public class BatchTerminalTests
         Assert.Contains("Records read 240", o.ToString(), StringComparison.Ordinal);
         Assert.DoesNotContain("0.43387000", o.ToString(), StringComparison.Ordinal); // rounded, not 17 digits
         var (_, csv, _) = CliTests.Run("", "batch", lot, "--spec", spec);
-        Assert.StartsWith("id,location,status", csv, StringComparison.Ordinal);
+        Assert.StartsWith("id,location,lot,status", csv, StringComparison.Ordinal);
     }
 }

@@ -23,9 +23,18 @@ public sealed record BatchSummary(
     RunningStatistics StepsFromMean, double StepsFromMeanP95,
     RunningStatistics StepsFromTarget, double StepsFromTargetP95,
     IReadOnlyList<Outlier> Outliers, IReadOnlyList<Capability> Capabilities)
-{    /// <summary>The screening caution printed with every verdict output.</summary>
+{
+    /// <summary>The screening caution printed with every verdict output.</summary>
     public const string Caution = "A pass here is a screening result on the data given, not a certification: accredited photometric testing, the applicable standards and local codes decide conformance.";
 
+    /// <summary>The metadata key the batch was grouped by, or null.</summary>
+    public string? GroupedBy { get; init; }
+
+    /// <summary>One summary per value of <see cref="GroupedBy"/>, in ordinal order of the value; empty without grouping.</summary>
+    public IReadOnlyList<GroupSummary> Groups { get; init; } = [];
+
+    /// <summary>How the batch was divided into subgroups for Cpk, in words, or null (Ppk only).</summary>
+    public string? SubgroupRule { get; init; }
 
     /// <summary>Pass rate among results (NaN when none).</summary>
     public double PassRate => Results > 0 ? (double)Passed / Results : double.NaN;

@@ -12,7 +12,9 @@ namespace Lumen.BatchStatistics;
 /// statistics. Outliers: robust z of the Δu′v′ distance from the coordinate-wise median, with MAD scaled by
 /// 1.4826 and the 3.5 cut-off of Iglewicz and Hoaglin (common practice). Capability: Ppk from the overall SD with
 /// Bissell's approximate 95 % interval (<see cref="CapabilityIndex"/>), for every limited field and, under an ellipse-steps
-/// tolerance, for the steps from the target against the allowed steps (one-sided).</remarks>
+/// tolerance, for the steps from the target against the allowed steps (one-sided); with subgroups
+/// (<see cref="BatchSummaryOptions"/>) also Cpk from the pooled within-subgroup SD. With a grouping key, one child
+/// summary per value, each exactly what a separate batch of that group's records would give.</remarks>
 public sealed class BatchSummaryBuilder
 {
     /// <summary>Fields summarised with mean/SD/min/max.</summary>
@@ -25,31 +27,72 @@ public sealed class BatchSummaryBuilder
     private readonly IdArena _ids = new();
     private readonly StepEllipse? _ellipse; // the spec's step metric (its shape, moved to the batch mean); null without a target
     private readonly double? _allowedSteps; // the ellipse-steps tolerance, for the chromaticity capability row
-    private long _records, _errors, _passed, _failed;
+    private readonly List<long> _pointRecord = []; // the record ordinal of each defined chromaticity
+    private float[]? _robustZ; // per defined chromaticity, after Build
+    private readonly PreparedSpec _spec;
+    private readonly BatchSummaryOptions _options;
+    private readonly Dictionary<string, PooledVariance>? _pooled; // per capability field, with subgroups
+    private readonly Dictionary<string, BatchSummaryBuilder>? _groups;
+    private string? _openSubgroup;
+    private long _records, _errors, _passed, _failed, _results;
+
+    /// <summary>Robust z above which a unit is a chromaticity outlier (Iglewicz and Hoaglin; common practice).</summary>
+    public const double OutlierZ = 3.5;
 
     /// <summary>Creates a builder for a batch judged against <paramref name="spec"/>.</summary>
     /// <param name="spec">The prepared specification: its limits give the capability fields, its ellipse the step metric.</param>
-    public BatchSummaryBuilder(PreparedSpec spec)
+    /// <param name="options">Groups and subgroups; null for none.</param>
+    public BatchSummaryBuilder(PreparedSpec spec, BatchSummaryOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(spec);
+        _spec = spec;
+        _options = options ?? BatchSummaryOptions.None;
+        if (_options.SubgroupSize is < 2) throw new ArgumentOutOfRangeException(nameof(options), "A subgroup needs at least 2 results.");
         _limits = spec.Spec.Limits.Select(l => (l.Field, l.Min, l.Max)).ToArray();
         _limited = _limits.Select(l => l.Field).Distinct().ToDictionary(f => f, _ => new RunningStatistics(), StringComparer.Ordinal);
         _ellipse = spec.Ellipse;
         if (spec.Spec.Target is not null && spec.Spec.Tolerance.Kind == ToleranceKind.EllipseSteps) _allowedSteps = spec.Spec.Tolerance.Value;
+        if (_options.SubgroupRule is not null)
+        {
+            _pooled = _limited.Keys.ToDictionary(f => f, _ => new PooledVariance(), StringComparer.Ordinal);
+            if (_allowedSteps is not null) _pooled[StepsField] = new PooledVariance();
+        }
+        if (_options.GroupBy is not null) _groups = new Dictionary<string, BatchSummaryBuilder>(StringComparer.Ordinal);
     }
+
+    private const string StepsField = "steps_from_target";
 
     /// <summary>Adds one record's outcome: a result with its verdict, or an error.</summary>
     /// <param name="outcome">The outcome (judged against the same specification).</param>
     public void Add(RecordOutcome outcome)
     {
         ArgumentNullException.ThrowIfNull(outcome);
+        if (_groups is not null)
+        {
+            string value = outcome.Record.MetadataValue(_options.GroupBy!) ?? "";
+            if (!_groups.TryGetValue(value, out var child))
+                _groups[value] = child = new BatchSummaryBuilder(_spec, _options with { GroupBy = null });
+            child.Add(outcome);
+        }
         if (outcome.Assessment is { } a)
-            AddResult(outcome.Record.Name, a.Chromaticity2Degree, outcome.Verdict?.Pass ?? true, p => ResultFields.Get(a, p), outcome.Verdict?.StepsFromTarget);
+            AddResult(outcome.Record.Name, a.Chromaticity2Degree, outcome.Verdict?.Pass ?? true, p => ResultFields.Get(a, p), outcome.Verdict?.StepsFromTarget,
+                _options.GroupBy is { } key ? outcome.Record.MetadataValue(key) ?? "" : null);
         else AddError();
     }
 
     /// <summary>Counts a record that could not be read or computed.</summary>
     internal void AddError() { _records++; _errors++; }
+
+    /// <summary>The subgroup of the next result: consecutive blocks when a size is set, else the group value.</summary>
+    private string? Subgroup(string? groupValue)
+    {
+        if (_pooled is null) return null;
+        string key = _options.SubgroupSize is { } n ? (_results / n).ToString(System.Globalization.CultureInfo.InvariantCulture) : groupValue ?? "";
+        if (_options.SubgroupSize is not null && _openSubgroup is { } open && open != key)
+            foreach (var p in _pooled.Values) p.Close(open); // a finished consecutive subgroup needs no memory
+        _openSubgroup = key;
+        return key;
+    }
 
     /// <summary>Adds a result.</summary>
     /// <param name="id">The record's ID (name), used to list outliers.</param>
@@ -57,15 +100,26 @@ public sealed class BatchSummaryBuilder
     /// <param name="pass">Pass/fail against the spec.</param>
     /// <param name="field">Field resolver (summary and limited fields).</param>
     /// <param name="stepsFromTarget">Steps from the target, or null.</param>
-    internal void AddResult(string id, Chromaticity chromaticity2Degree, bool pass, Func<string, double?> field, double? stepsFromTarget)
+    /// <param name="groupValue">The record's value of the grouping key (the subgroup when no size is set), or null.</param>
+    internal void AddResult(string id, Chromaticity chromaticity2Degree, bool pass, Func<string, double?> field, double? stepsFromTarget, string? groupValue = null)
     {
         ArgumentNullException.ThrowIfNull(field);
+        string? subgroup = Subgroup(groupValue);
+        long ordinal = _records;
         _records++;
+        _results++;
         if (pass) _passed++; else _failed++;
         foreach (var (name, s) in _stats) s.Add(field(name) ?? double.NaN);
-        foreach (var (name, s) in _limited) s.Add(field(name) ?? double.NaN);
+        foreach (var (name, s) in _limited)
+        {
+            double x = field(name) ?? double.NaN;
+            s.Add(x);
+            if (subgroup is not null) _pooled![name].Add(subgroup, x);
+        }
+        if (subgroup is not null && _allowedSteps is not null) _pooled![StepsField].Add(subgroup, stepsFromTarget ?? double.NaN);
         if (chromaticity2Degree.IsDefined)
         {
+            _pointRecord.Add(ordinal);
             _u.Add((float)chromaticity2Degree.UPrime);
             _v.Add((float)chromaticity2Degree.VPrime);
             _ids.Add(id);
@@ -95,11 +149,32 @@ public sealed class BatchSummaryBuilder
         var targetValues = _stepsTarget.Where(float.IsFinite).Select(x => (double)x).ToArray();
         foreach (var x in targetValues) fromTarget.Add(x);
 
-        var caps = _limits.Select(l => CapabilityIndex.Of(l.Field, _limited[l.Field], l.Min, l.Max)).ToList();
-        if (_allowedSteps is { } allowed) caps.Add(CapabilityIndex.Of("steps_from_target", fromTarget, null, allowed));
+        if (_pooled is not null) foreach (var p in _pooled.Values) p.CloseAll();
+        var caps = _limits.Select(l => CapabilityIndex.Of(l.Field, _limited[l.Field], l.Min, l.Max, _pooled?[l.Field])).ToList();
+        if (_allowedSteps is { } allowed) caps.Add(CapabilityIndex.Of(StepsField, fromTarget, null, allowed, _pooled?[StepsField]));
 
+        var groups = _groups?.OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => new GroupSummary(g.Key, g.Value.Build())).ToArray();
         return new BatchSummary(_records, _records - _errors, _errors, _passed, _failed,
-            _stats, mu, mv, MaxPairwise(), fromMean, Percentile(fromMeanValues, 0.95), fromTarget, Percentile(targetValues, 0.95), Outliers(), caps);
+            _stats, mu, mv, MaxPairwise(), fromMean, Percentile(fromMeanValues, 0.95), fromTarget, Percentile(targetValues, 0.95), Outliers(), caps)
+        {
+            GroupedBy = _options.GroupBy,
+            Groups = groups ?? [],
+            SubgroupRule = _options.SubgroupRule,
+        };
+    }
+
+    /// <summary>
+    /// The robust z of a record's chromaticity (Δu′v′ from the batch median against the MAD, as for the outliers), by the
+    /// record's ordinal in the order records were added; NaN for an error, an undefined chromaticity, or a batch too small
+    /// or too uniform for a MAD. Available after <see cref="Build"/>.
+    /// </summary>
+    /// <param name="record">Zero-based ordinal of the record among all records added (errors included).</param>
+    /// <returns>The robust z, or NaN.</returns>
+    public double RobustZ(long record)
+    {
+        if (_robustZ is null) throw new InvalidOperationException("Build the summary first.");
+        int i = _pointRecord.BinarySearch(record);
+        return i >= 0 ? _robustZ[i] : double.NaN;
     }
 
     /// <summary>Linear-interpolated percentile (common practice, "type 7").</summary>
@@ -144,6 +219,8 @@ public sealed class BatchSummaryBuilder
     private IReadOnlyList<Outlier> Outliers()
     {
         int n = _u.Count;
+        _robustZ = new float[n];
+        Array.Fill(_robustZ, float.NaN);
         if (n < 5) return [];
         var work = new double[n];
         for (int i = 0; i < n; i++) work[i] = _u[i];
@@ -161,7 +238,8 @@ public sealed class BatchSummaryBuilder
         for (int i = 0; i < n; i++)
         {
             double z = (d[i] - md) / (1.4826 * mad);
-            if (z > 3.5) list.Add(new Outlier(_ids.Get(i), d[i], z));
+            _robustZ[i] = (float)z;
+            if (z > OutlierZ) list.Add(new Outlier(_ids.Get(i), d[i], z));
         }
         return list.OrderByDescending(o => o.RobustZ).ToArray();
     }

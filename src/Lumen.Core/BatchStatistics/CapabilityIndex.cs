@@ -29,10 +29,22 @@ public static class CapabilityIndex
     /// <param name="n">Number of values.</param>
     /// <param name="z">Standard normal quantile (1.96 for 95 %).</param>
     /// <returns>(lower, upper); NaN for both when n &lt; 2 or the index is not finite.</returns>
-    public static (double Lower, double Upper) BissellInterval(double index, long n, double z = Z95)
+    public static (double Lower, double Upper) BissellInterval(double index, long n, double z = Z95) =>
+        BissellInterval(index, n, n - 1, z);
+
+    /// <summary>Bissell's interval when σ is estimated with <paramref name="degreesOfFreedom"/> degrees of freedom other
+    /// than n − 1 (a pooled within-subgroup SD has Σ(nᵢ − 1)): k̂ ± z·√(1/(9n) + k̂²/(2ν)). The first term is the mean's
+    /// share of the variance (n values), the second the SD's (ν degrees of freedom); with ν = n − 1 it is Bissell's
+    /// formula (docs/methods/conformance.md §5).</summary>
+    /// <param name="index">The estimated index k̂.</param>
+    /// <param name="n">Number of values behind the mean.</param>
+    /// <param name="degreesOfFreedom">Degrees of freedom ν of the SD.</param>
+    /// <param name="z">Standard normal quantile.</param>
+    /// <returns>(lower, upper); NaN for both when n &lt; 2, ν &lt; 1 or the index is not finite.</returns>
+    public static (double Lower, double Upper) BissellInterval(double index, long n, long degreesOfFreedom, double z = Z95)
     {
-        if (n < 2 || !double.IsFinite(index)) return (double.NaN, double.NaN);
-        double se = Math.Sqrt(1.0 / (9.0 * n) + index * index / (2.0 * (n - 1)));
+        if (n < 2 || degreesOfFreedom < 1 || !double.IsFinite(index)) return (double.NaN, double.NaN);
+        double se = Math.Sqrt(1.0 / (9.0 * n) + index * index / (2.0 * degreesOfFreedom));
         return (index - z * se, index + z * se);
     }
 
@@ -42,11 +54,19 @@ public static class CapabilityIndex
     /// <param name="lower">Lower limit, or null.</param>
     /// <param name="upper">Upper limit, or null.</param>
     /// <returns>The capability row.</returns>
-    public static Capability Of(string field, RunningStatistics stats, double? lower, double? upper)
+    /// <param name="within">The field's pooled within-subgroup spread, or null when the batch has no subgroups.</param>
+    public static Capability Of(string field, RunningStatistics stats, double? lower, double? upper, PooledVariance? within = null)
     {
         ArgumentNullException.ThrowIfNull(stats);
         double ppk = Ppk(stats.Mean, stats.StandardDeviation, lower, upper);
         var (l, u) = BissellInterval(ppk, stats.Count);
-        return new Capability(field, lower, upper, stats.Count, stats.Mean, stats.StandardDeviation, ppk, l, u);
+        WithinCapability? w = null;
+        if (within is not null)
+        {
+            double cpk = Ppk(stats.Mean, within.StandardDeviation, lower, upper);
+            var (cl, cu) = BissellInterval(cpk, stats.Count, within.DegreesOfFreedom);
+            w = new WithinCapability(within.Subgroups, within.DegreesOfFreedom, within.StandardDeviation, cpk, cl, cu);
+        }
+        return new Capability(field, lower, upper, stats.Count, stats.Mean, stats.StandardDeviation, ppk, l, u) { Within = w };
     }
 }
