@@ -6,6 +6,12 @@ namespace Lumen.Cli;
 /// <summary>The <c>lumen</c> command: builds the verbs and runs one command line.</summary>
 public static class LumenApp
 {
+    /// <summary>Lumen's version as <c>--version</c> prints it (without the source revision).</summary>
+    public static string Version { get; } =
+        (typeof(LumenApp).Assembly.GetCustomAttributes(typeof(System.Reflection.AssemblyInformationalVersionAttribute), false)
+            .OfType<System.Reflection.AssemblyInformationalVersionAttribute>().FirstOrDefault()?.InformationalVersion ?? "unknown")
+        .Split('+')[0];
+
     /// <summary>Runs a command line with injected standard streams (tests capture them).</summary>
     /// <param name="args">Arguments.</param>
     /// <param name="stdin">Standard input (for <c>-</c>).</param>

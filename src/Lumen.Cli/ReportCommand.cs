@@ -14,12 +14,18 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
     public Option<bool> Compare { get; } = new("--compare") { Description = "A comparison report: every source against the reference (the first spectrum, or --reference)." };
     public Option<string?> Reference { get; } = new("--reference", "-r") { Description = "With --compare: the reference spectrum's name (default: the first)." };
     public Option<string[]> Filters { get; } = new("--filter") { Description = "With --compare: filter transmittance files or folders to try on each source.", AllowMultipleArgumentsPerToken = true };
+    public Option<string> Diagram { get; } = new("--diagram") { Description = "Chromaticity diagram of the report: uv (CIE 1976 u'v', default) or xy (CIE 1931).", DefaultValueFactory = _ => "uv" };
+    public Option<string> Paper { get; } = new("--paper") { Description = "Page size of the print layout: a4 (default) or letter.", DefaultValueFactory = _ => "a4" };
+    public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Batch report: a summary per value of this metadata column, and the subgroups of Cpk." };
+    public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Batch report: consecutive results per subgroup for Cpk, at least 2." };
 
     public Command Build()
     {
         var cmd = new Command("report", "Write one self-contained HTML report (inline SVG and CSS, no scripts) for a source or a batch.");
         _inputs.AddTo(cmd);
-        cmd.Add(Spec); cmd.Add(Out); cmd.Add(Compare); cmd.Add(Reference); cmd.Add(Filters);
+        Diagram.AcceptOnlyFromAmong("uv", "xy");
+        Paper.AcceptOnlyFromAmong("a4", "letter");
+        cmd.Add(Spec); cmd.Add(Out); cmd.Add(Compare); cmd.Add(Reference); cmd.Add(Filters); cmd.Add(Diagram); cmd.Add(Paper); cmd.Add(GroupBy); cmd.Add(SubgroupSize);
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -30,6 +36,14 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
         if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out))) return ExitCodes.UsageError;
         string outPath = parse.GetValue(Out)!;
         if (OutputTarget.ConflictWithInputs(outPath, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen report: {conflict}."); return ExitCodes.UsageError; }
+        if (parse.GetValue(SubgroupSize) is < 2) { stderr.WriteLine("lumen report: --subgroup-size must be at least 2 (a subgroup of one has no spread)."); return ExitCodes.UsageError; }
+        var context = new ReportContext(ReportDate(), LumenApp.Version)
+        {
+            Inputs = inputs.Inputs.Select(f => Describe(f.Path)).ToArray(),
+            SpecText = parse.GetValue(Spec) is { } specPath ? File.ReadAllText(specPath) : null,
+            Space = parse.GetValue(Diagram) == "xy" ? DiagramSpace.Xy : DiagramSpace.UPrimeVPrime,
+            Paper = parse.GetValue(Paper) == "letter" ? PaperSize.Letter : PaperSize.A4,
+        };
         var records = inputs.Records(stdin).ToList();
         var items = new RecordOutcome[records.Count];
         Parallel.For(0, records.Count, i => items[i] = RecordOutcome.Of(records[i], AssessmentOptions.Default, spec));
@@ -53,13 +67,35 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
         }
         else if (spec is not null && records.Count > 1)
         {
-            var builder = new BatchSummaryBuilder(spec);
+            var builder = new BatchSummaryBuilder(spec, new BatchSummaryOptions(parse.GetValue(GroupBy), parse.GetValue(SubgroupSize)));
             foreach (var it in items) builder.Add(it);
-            html = HtmlReport.Batch(items, builder.Build(), spec);
+            html = HtmlReport.Batch(items, builder.Build(), spec, context);
         }
-        else html = HtmlReport.Single(items, spec);
+        else html = HtmlReport.Single(items, spec, context);
         if (OutputTarget.WriteText(outPath, stdout, w => w.Write(html)) is { } failure) return CommonOptions.OutputFailed(stderr, failure);
         if (!OutputTarget.IsStdout(outPath)) stdout.WriteLine($"wrote {outPath}");
         return items.Any(i => i.Error is not null) ? ExitCodes.InputErrors : ExitCodes.Success;
+    }
+
+    /// <summary>The date stamped in the report: now, or SOURCE_DATE_EPOCH (seconds since 1970, the common convention for
+    /// reproducible outputs) when it is set.</summary>
+    private static DateTimeOffset ReportDate() =>
+        long.TryParse(Environment.GetEnvironmentVariable("SOURCE_DATE_EPOCH"), System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out long epoch)
+            ? DateTimeOffset.FromUnixTimeSeconds(epoch) : DateTimeOffset.UtcNow;
+
+    /// <summary>An input's size and SHA-256 (streamed; standard input and unreadable files are not hashed).</summary>
+    private static ReportInput Describe(string path)
+    {
+        if (path == "-" || !File.Exists(path)) return new ReportInput(path, -1, null);
+        try
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
+            var hash = System.Security.Cryptography.SHA256.HashData(stream);
+            return new ReportInput(path, stream.Length, Convert.ToHexStringLower(hash));
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            return new ReportInput(path, -1, null);
+        }
     }
 }

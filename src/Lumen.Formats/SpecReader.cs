@@ -10,7 +10,7 @@ namespace Lumen.Formats;
 /// </summary>
 public static class SpecReader
 {
-    private static readonly HashSet<string> TopLevel = new(StringComparer.Ordinal) { "name", "description", "target", "chromaticity", "limits" };
+    private static readonly HashSet<string> TopLevel = new(StringComparer.Ordinal) { "name", "description", "project", "client", "preparedBy", "target", "chromaticity", "limits" };
 
     /// <summary>Largest specification file accepted, bytes.</summary>
     public const int MaxBytes = 1024 * 1024;
@@ -86,7 +86,7 @@ public static class SpecReader
             var root = doc.RootElement;
             if (root.ValueKind != JsonValueKind.Object) { Error("", "expected a JSON object with name, target, chromaticity and limits"); return null; }
             foreach (var p in root.EnumerateObject())
-                if (!TopLevel.Contains(p.Name)) Error("/" + p.Name, $"unknown field '{p.Name}'; expected name, description, target, chromaticity or limits");
+                if (!TopLevel.Contains(p.Name)) Error("/" + p.Name, $"unknown field '{p.Name}'; expected name, description, project, client, preparedBy, target, chromaticity or limits");
 
             string name = "unnamed specification";
             if (root.TryGetProperty("name", out var n))
@@ -95,6 +95,14 @@ public static class SpecReader
                 else Error("/name", "name must be a text in quotes, e.g. \"DL-30 warm white\"");
             }
             if (root.TryGetProperty("description", out var desc) && desc.ValueKind != JsonValueKind.String) Error("/description", "description must be a text in quotes");
+            string? Optional(string key)
+            {
+                if (!root.TryGetProperty(key, out var v)) return null;
+                if (v.ValueKind == JsonValueKind.String) return v.GetString();
+                Error("/" + key, $"{key} must be a text in quotes");
+                return null;
+            }
+            string? project = Optional("project"), client = Optional("client"), preparedBy = Optional("preparedBy");
             ChromaticityTarget? target = null;
             if (root.TryGetProperty("target", out var t)) target = ReadTarget(t, Error);
             var tolerance = new ChromaticityTolerance(ToleranceKind.None, 0);
@@ -122,7 +130,7 @@ public static class SpecReader
             if (list.Count == 0 && tolerance.Kind == ToleranceKind.None && limits.Count == 0)
                 Error("", "the specification checks nothing: give a chromaticity tolerance (with a target) or at least one limit");
             if (list.Count > 0) return null;
-            return new ToleranceSpec(name, target, tolerance, limits) { Warnings = warnings };
+            return new ToleranceSpec(name, target, tolerance, limits) { Warnings = warnings, Project = project, Client = client, PreparedBy = preparedBy };
         }
     }
 

@@ -35,6 +35,14 @@ public static class HtmlReport
         .warn{background:#fdeeee;border-left:4px solid #c2410c;padding:6px 12px;margin:6px 0;font-size:14px}
         .muted{color:#6b727a;font-size:13px} figure{margin:12px 0} svg{max-width:100%;height:auto;border:1px solid #e3e6ea}
         .grid{display:grid;grid-template-columns:1fr 1fr;gap:12px}
+        #about th{width:11em} .verdict{font-size:18px;margin:10px 0;padding:8px 12px;background:#f0f2f5}
+        pre{white-space:pre-wrap;word-break:break-all;font-size:12px;background:#f7f8fa;padding:8px;border:1px solid #e3e6ea}
+        code.hash{font-size:11px;word-break:break-all}
+        @media print{
+          body{background:#fff} main{max-width:none;padding:0} svg{border:none} a{color:inherit;text-decoration:none}
+          figure,tr,.caution,.warn,#about,.verdict{break-inside:avoid} h2,h3{break-after:avoid}
+          table{font-size:11px} th,td{padding:2px 5px} figure svg{max-height:120mm}
+        }
         """;
 
     /// <summary>Escapes text for HTML (every name from a file goes through this).</summary>
@@ -58,10 +66,72 @@ public static class HtmlReport
         return "<figure>" + svg + "</figure>";
     }
 
-    private static void Head(StringBuilder sb, string title)
+    private static void Head(StringBuilder sb, string title, ReportContext? context = null)
     {
-        sb.Append("<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>").Append(E(title)).Append("</title><style>").Append(Css).Append("</style></head><body><main>");
+        string page = (context?.Paper ?? PaperSize.A4) == PaperSize.Letter ? "letter" : "A4";
+        sb.Append("<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>").Append(E(title)).Append("</title><style>").Append(Css)
+          .Append("@page{size:").Append(page).Append(";margin:14mm 12mm}</style></head><body><main>");
     }
+
+    /// <summary>The head of a report a client can accept: title, project, client, preparer, date, tool version, the
+    /// specification in one line, and the overall verdict.</summary>
+    private static void FrontMatter(StringBuilder sb, string heading, PreparedSpec? spec, ReportContext? context, string? verdict)
+    {
+        sb.Append("<header id=\"front\"><h1>").Append(E(heading)).Append("</h1><table id=\"about\">");
+        void Row(string name, string? value)
+        {
+            if (value is null) return;
+            sb.Append("<tr><th>").Append(name).Append("</th><td class=\"t\">").Append(E(value)).Append("</td></tr>");
+        }
+        Row("Project", spec?.Spec.Project);
+        Row("Client", spec?.Spec.Client);
+        Row("Prepared by", spec?.Spec.PreparedBy);
+        if (context is not null)
+        {
+            Row("Date", context.Date.ToUniversalTime().ToString("yyyy-MM-dd HH:mm 'UTC'", Inv));
+            Row("Made with", "Lumen " + context.Version);
+            if (context.Inputs.Count > 0) Row("Inputs", context.Inputs.Count == 1 ? context.Inputs[0].Path : $"{context.Inputs.Count} files (listed with their SHA-256 at the end)");
+        }
+        Row("Specification", spec?.Spec.Description);
+        if (spec?.TargetDescription is { } target) Row("Target", target);
+        sb.Append("</table>");
+        if (verdict is not null) sb.Append("<p class=\"verdict\" id=\"verdict\">").Append(verdict).Append("</p>");
+        sb.Append("</header>");
+    }
+
+    /// <summary>The closing record: every input with its size and SHA-256, and the specification as written.</summary>
+    private static void Appendix(StringBuilder sb, ReportContext? context)
+    {
+        if (context is null) return;
+        sb.Append("<h2 id=\"inputs\">Inputs and specification</h2><table><tr><th>input</th><th>bytes</th><th>SHA-256</th></tr>");
+        foreach (var i in context.Inputs)
+            sb.Append(Inv, $"<tr><td class=\"t\">{E(i.Path)}</td><td>{(i.Bytes >= 0 ? i.Bytes.ToString("N0", Inv) : "—")}</td><td class=\"t\"><code class=\"hash\">{(i.Sha256 is { } h ? E(h) : "not computed (standard input)")}</code></td></tr>");
+        sb.Append("</table>");
+        if (context.SpecText is { } text) sb.Append("<h3>Specification as written</h3><pre id=\"spec-text\">").Append(E(text)).Append("</pre>");
+        sb.Append("<p class=\"muted\">Made with Lumen ").Append(E(context.Version)).Append(" on ").Append(context.Date.ToUniversalTime().ToString("yyyy-MM-dd HH:mm 'UTC'", Inv))
+          .Append(". Methods and their sources are listed in each unit's provenance.</p>");
+    }
+
+    private static string SpaceTitle(DiagramSpace space, string what) =>
+        space == DiagramSpace.Xy ? what + " (CIE 1931 x, y)" : what + " (CIE 1976 u′, v′)";
+
+    /// <summary>Order for reading: failures first, then errors, then passes (input order within each).</summary>
+    private static int Rank(RecordOutcome o) => o.Status switch { "fail" => 0, "error" => 1, _ => 2 };
+
+    /// <summary>Human labels for the provenance keys.</summary>
+    private static string ProvenanceLabel(string key) => key switch
+    {
+        "tristimulus" => "Tristimulus values",
+        "cct" => "CCT and Duv",
+        "planckianLocus" => "Planckian locus",
+        "sampling" => "Spectral sampling",
+        "cri" => "Colour rendering (CIE 13.3)",
+        "fidelity" => "Colour fidelity and gamut (CIE 224, TM-30)",
+        "photometry" => "Photometry",
+        "nonVisual" => "Non-visual (α-opic) quantities",
+        "dominantWavelength" => "Dominant wavelength",
+        _ => char.ToUpperInvariant(key[0]) + System.Text.RegularExpressions.Regex.Replace(key[1..], "([A-Z])", m => " " + m.Value.ToLowerInvariant()),
+    };
 
     private static void Cautions(StringBuilder sb, bool batch)
     {
@@ -74,28 +144,38 @@ public static class HtmlReport
     /// <summary>A report for one source (or a few): all results, plots, warnings, provenance, cautions.</summary>
     /// <param name="items">Analysed records.</param>
     /// <param name="spec">Optional spec.</param>
+    /// <param name="context">Date, version, inputs and layout; null for a bare report.</param>
     /// <returns>HTML.</returns>
-    public static string Single(IReadOnlyList<RecordOutcome> items, PreparedSpec? spec)
+    public static string Single(IReadOnlyList<RecordOutcome> items, PreparedSpec? spec, ReportContext? context = null)
     {
         ArgumentNullException.ThrowIfNull(items);
         var sb = new StringBuilder();
-        Head(sb, "Lumen report");
-        sb.Append("<h1>Light source report</h1><p class=\"muted\">Lumen: CIE colorimetry, CCT/Duv, CIE 13.3, CIE 224 / IES TM-30, CIE S 026.</p>");
+        string heading = spec is not null ? "Light source report — " + spec.Spec.Name : "Light source report";
+        Head(sb, heading, context);
+        string? verdict = null;
+        if (spec is not null)
+        {
+            int fail = items.Count(i => i.Assessment is not null && !spec.Evaluate(i.Assessment).Pass), errors = items.Count(i => i.Assessment is null);
+            int pass = items.Count - fail - errors;
+            verdict = string.Create(Inv, $"{(fail + errors == 0 ? "<span class=\"pass\">All pass</span>" : "<span class=\"fail\">Not all pass</span>")}: {pass} pass, {fail} fail{(errors > 0 ? $", {errors} unreadable" : "")} of {items.Count}.");
+        }
+        FrontMatter(sb, heading, spec, context, verdict);
         Cautions(sb, spec is not null);
         sb.Append("<h2>Summary</h2><table id=\"summary\"><tr><th>name</th><th>source</th><th>CCT (K)</th><th>Duv</th><th>x</th><th>y</th><th>u′</th><th>v′</th><th>Ra</th><th>R9</th><th>Rf</th><th>Rg</th>");
         if (spec is not null) sb.Append("<th>verdict</th>");
         sb.Append("</tr>");
-        int k = 0;
-        foreach (var item in items)
+        var numbered = items.Select((item, i) => (Item: item, K: i + 1)).ToList();
+        var shown = spec is null ? numbered : numbered.OrderBy(x => x.Item.Assessment is { } a0 ? (spec.Evaluate(a0).Pass ? 2 : 0) : 1).ToList();
+        foreach (var (item, k) in shown)
         {
-            k++;
             if (item.Assessment is not { } a)
             {
                 sb.Append("<tr><td class=\"t\">").Append(E(item.Record.Name)).Append("</td><td class=\"t\" colspan=\"11\"><span class=\"error\">error</span> ").Append(E(item.Error?.ToString() ?? "")).Append("</td></tr>");
                 continue;
             }
             var c = a.Chromaticity2Degree;
-            sb.Append(Inv, $"<tr><td class=\"t\"><a href=\"#unit-{k}\">{E(a.Name)}</a></td><td class=\"t\">{E(a.Origin.ToString())}</td><td>{F(a.Cct.CctKelvin, "0")}</td><td>{F(a.Cct.Duv, "+0.0000;-0.0000;0.0000")}</td><td>{F(c.SmallX)}</td><td>{F(c.SmallY)}</td><td>{F(c.UPrime)}</td><td>{F(c.VPrime)}</td><td>{F(a.Cri?.Ra, "0.0")}</td><td>{F(a.Cri?.R9, "0.0")}</td><td>{F(a.Fidelity?.Rf, "0.0")}</td><td>{F(a.Fidelity?.Rg, "0.0")}</td>");
+            string xy = Rounding.Value("chromaticity.x");
+            sb.Append(Inv, $"<tr><td class=\"t\"><a href=\"#unit-{k}\">{E(a.Name)}</a></td><td class=\"t\">{E(a.Origin.ToString())}</td><td>{F(a.Cct.CctKelvin, Rounding.Value("cct.kelvin"))}</td><td>{F(a.Cct.Duv, Rounding.Value("cct.duv"))}</td><td>{F(c.SmallX, xy)}</td><td>{F(c.SmallY, xy)}</td><td>{F(c.UPrime, xy)}</td><td>{F(c.VPrime, xy)}</td><td>{F(a.Cri?.Ra, Rounding.Value("cri.ra"))}</td><td>{F(a.Cri?.R9, Rounding.Value("cri.r9"))}</td><td>{F(a.Fidelity?.Rf, Rounding.Value("fidelity.rf"))}</td><td>{F(a.Fidelity?.Rg, Rounding.Value("fidelity.rg"))}</td>");
             if (spec is not null)
             {
                 var v = spec.Evaluate(a);
@@ -105,18 +185,16 @@ public static class HtmlReport
         }
         sb.Append("</table>");
         var ok = items.Where(i => i.Assessment is not null).ToList();
+        var space = context?.Space ?? DiagramSpace.UPrimeVPrime;
         if (ok.Count > 0)
         {
             sb.Append("<h2>Chromaticity</h2>");
             var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree, Status(spec, i.Assessment!))).ToList();
-            sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(DiagramSpace.Xy, pts, spec, "CIE 1931 chromaticity")), "locus", "chromaticity diagram"));
+            sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(space, pts, spec, SpaceTitle(space, "Chromaticity"))), "locus", "chromaticity diagram"));
         }
-        k = 0;
-        foreach (var item in items)
-        {
-            k++;
+        foreach (var (item, k) in shown)
             if (item.Assessment is { } a) Detail(sb, a, item.Record, spec, k);
-        }
+        Appendix(sb, context);
         sb.Append("</main></body></html>");
         return sb.ToString();
     }
@@ -131,12 +209,13 @@ public static class HtmlReport
         var c = a.Chromaticity2Degree;
         sb.Append("<table><tr><th>quantity</th><th>value</th></tr>");
         void Row(string n, string v) => sb.Append("<tr><td class=\"t\">").Append(n).Append("</td><td>").Append(v).Append("</td></tr>");
-        Row("CCT (K), Duv", $"{F(a.Cct.CctKelvin, "0.0")}, {F(a.Cct.Duv, "+0.00000;-0.00000;0")}");
-        Row("x, y (CIE 1931 2°)", $"{F(c.SmallX, "0.00000")}, {F(c.SmallY, "0.00000")}");
-        Row("u′, v′ (CIE 1976)", $"{F(c.UPrime, "0.00000")}, {F(c.VPrime, "0.00000")}");
+        string xy = Rounding.Value("chromaticity.x");
+        Row("CCT (K), Duv", $"{F(a.Cct.CctKelvin, Rounding.Value("cct.kelvin"))}, {F(a.Cct.Duv, Rounding.Value("cct.duv"))}");
+        Row("x, y (CIE 1931 2°)", $"{F(c.SmallX, xy)}, {F(c.SmallY, xy)}");
+        Row("u′, v′ (CIE 1976)", $"{F(c.UPrime, xy)}, {F(c.VPrime, xy)}");
         Row("X, Y, Z (Y = 100)", $"{F(a.Tristimulus.X, "0.000")}, {F(a.Tristimulus.Y, "0.000")}, {F(a.Tristimulus.Z, "0.000")}");
-        if (a.Cri is { } cri) Row("Ra (CIE 13.3), DC", $"{F(cri.Ra, "0.0")}, {F(cri.Dc, "0.0000")} ({E(cri.Reference.Description)})");
-        if (a.Fidelity is { } fi) Row("Rf (CIE 224), Rg (TM-30)", $"{F(fi.Rf, "0.0")}, {F(fi.Rg, "0.0")} ({E(fi.Reference.Description)})");
+        if (a.Cri is { } cri) Row("Ra (CIE 13.3), DC", $"{F(cri.Ra, Rounding.Value("cri.ra"))}, {F(cri.Dc, "0.0000")} ({E(cri.Reference.Description)})");
+        if (a.Fidelity is { } fi) Row("Rf (CIE 224), Rg (TM-30)", $"{F(fi.Rf, Rounding.Value("fidelity.rf"))}, {F(fi.Rg, Rounding.Value("fidelity.rg"))} ({E(fi.Reference.Description)})");
         if (a.Photometry is { } ph)
         {
             Row("LER (lm/W), S/P", $"{F(ph.LerLumensPerWatt, "0.0")} over {ph.BandFirstNm:0}–{ph.BandLastNm:0} nm, {F(ph.SpRatio, "0.000")}");
@@ -151,7 +230,7 @@ public static class HtmlReport
             sb.Append("<h3>CIE 13.3 special indices</h3><table><tr>");
             for (int i = 1; i <= 14; i++) sb.Append(Inv, $"<th>R{i}</th>");
             sb.Append("</tr><tr>");
-            foreach (var r in cr.R) sb.Append("<td>").Append(F(r, "0.0")).Append("</td>");
+            foreach (var r in cr.R) sb.Append("<td>").Append(F(r, Rounding.Value("cri.r1"))).Append("</td>");
             sb.Append("</tr></table>");
         }
         if (a.Fidelity is { } f)
@@ -171,7 +250,7 @@ public static class HtmlReport
             var v = spec.Evaluate(a);
             sb.Append("<h3>Verdict: ").Append(v.Pass ? "<span class=\"pass\">pass</span>" : "<span class=\"fail\">fail</span>").Append("</h3><table><tr><th>criterion</th><th>measured</th><th>limit</th><th>margin</th><th>result</th></tr>");
             foreach (var cr2 in v.Criteria)
-                sb.Append(Inv, $"<tr><td class=\"t\">{E(cr2.Criterion)}</td><td>{F(cr2.Measured, "0.#####")}</td><td class=\"t\">{E(cr2.Limit)}</td><td>{F(cr2.Margin, "0.#####")}</td><td class=\"t {(cr2.Pass ? "pass" : "fail")}\">{(cr2.Pass ? "pass" : "fail")}</td></tr>");
+                sb.Append(Inv, $"<tr><td class=\"t\">{E(cr2.Criterion)}</td><td>{F(cr2.Measured, Rounding.Value(cr2.Criterion))}</td><td class=\"t\">{E(cr2.Limit)}</td><td>{F(cr2.Margin, Rounding.Spread(cr2.Criterion))}</td><td class=\"t {(cr2.Pass ? "pass" : "fail")}\">{(cr2.Pass ? "pass" : "fail")}</td></tr>");
             sb.Append("</table>");
         }
         if (record is SpectrumRecord { Spectrum: var spectrum })
@@ -183,15 +262,15 @@ public static class HtmlReport
             sb.Append(InlineSvg(1200, 520, (cv, z) => SwatchPlot.Draw(cv, z, spectrum, a), $"swatch-{k}", "colour samples"));
         }
         sb.Append("<h3>Provenance</h3><table>");
-        foreach (var (key, value) in a.Provenance.Methods) sb.Append("<tr><td class=\"t\">").Append(E(key)).Append("</td><td class=\"t\">").Append(E(value)).Append("</td></tr>");
-        sb.Append("<tr><td class=\"t\">standards</td><td class=\"t\">").Append(E(string.Join("; ", a.Provenance.Standards))).Append("</td></tr>");
-        sb.Append(Inv, $"<tr><td class=\"t\">c2</td><td class=\"t\">{a.Provenance.C2MetreKelvin} m·K</td></tr>");
-        sb.Append(Inv, $"<tr><td class=\"t\">measured range</td><td class=\"t\">{a.Provenance.MeasuredFirstNm:0.###}–{a.Provenance.MeasuredLastNm:0.###} nm</td></tr></table></section>");
+        foreach (var (key, value) in a.Provenance.Methods) sb.Append("<tr><td class=\"t\">").Append(E(ProvenanceLabel(key))).Append("</td><td class=\"t\">").Append(E(value)).Append("</td></tr>");
+        sb.Append("<tr><td class=\"t\">Standards</td><td class=\"t\">").Append(E(string.Join("; ", a.Provenance.Standards))).Append("</td></tr>");
+        sb.Append(Inv, $"<tr><td class=\"t\">Second radiation constant c₂</td><td class=\"t\">{a.Provenance.C2MetreKelvin * 100:0.######} × 10⁻² m·K</td></tr>");
+        sb.Append(Inv, $"<tr><td class=\"t\">Measured range</td><td class=\"t\">{a.Provenance.MeasuredFirstNm:0.###}–{a.Provenance.MeasuredLastNm:0.###} nm</td></tr></table></section>");
     }
 
-    /// <summary>The batch histograms: CCT, Duv, Ra, R9, Rf, the steps from the target, and every other limited field,
-    /// each with its specification limits.</summary>
-    private static List<(string Field, string Title, double[] Values, List<(string, double)> Limits)> HistogramPanels(List<RecordOutcome> ok, PreparedSpec spec)
+    /// <summary>The batch's distribution panels: CCT, Duv, Ra, R9, Rf, the steps from the target, and every other limited
+    /// field, each with its specification limits and one value per record in input order (NaN for none).</summary>
+    private static List<(string Field, string Title, double[] Series, List<(string, double)> Limits)> Panels(IReadOnlyList<RecordOutcome> items, PreparedSpec spec)
     {
         var fields = new List<(string Field, string Title)> { ("cct.kelvin", "CCT (K)"), ("cct.duv", "Duv"), ("cri.ra", "Ra"), ("cri.r9", "R9"), ("fidelity.rf", "Rf") };
         foreach (var l in spec.Spec.Limits) if (!fields.Exists(f => f.Field == l.Field)) fields.Add((l.Field, l.Field));
@@ -203,12 +282,12 @@ public static class HtmlReport
                 if (l.Min is { } lo) limits.Add((string.Create(Inv, $"min {lo:G6}"), lo));
                 if (l.Max is { } hi) limits.Add((string.Create(Inv, $"max {hi:G6}"), hi));
             }
-            var values = ok.Select(i => ResultFields.Get(i.Assessment!, f.Field) ?? double.NaN).Where(double.IsFinite).ToArray();
-            return (f.Field, f.Title, values, limits);
+            var series = items.Select(i => i.Assessment is { } a ? ResultFields.Get(a, f.Field) ?? double.NaN : double.NaN).ToArray();
+            return (f.Field, f.Title, series, limits);
         }).ToList();
         if (spec.Centre is not null)
         {
-            var steps = ok.Select(i => i.Verdict?.StepsFromTarget ?? double.NaN).Where(double.IsFinite).ToArray();
+            var steps = items.Select(i => i.Verdict?.StepsFromTarget ?? double.NaN).ToArray();
             var limits = spec.Spec.Tolerance.Kind == ToleranceKind.EllipseSteps ? new List<(string, double)> { (string.Create(Inv, $"max {spec.Spec.Tolerance.Value:G6} steps"), spec.Spec.Tolerance.Value) } : [];
             panels.Add(("steps_from_target", "Steps from target", steps, limits));
         }
@@ -218,75 +297,116 @@ public static class HtmlReport
     /// <summary>Most rows of the report's outlier table (largest robust z first); the rest are counted.</summary>
     public const int OutlierTableLimit = 20;
 
-    /// <summary>A batch report: summary, pass/fail table, spread plot, histograms, outliers, per-unit detail.</summary>
-    /// <param name="items">Judged records (in input order; the first <see cref="TableLimit"/> are tabled).</param>
+    /// <summary>A batch report: verdict, summary, capability, groups, spread plot, histograms and run charts, outliers,
+    /// the unit table and detail (failures first), inputs with SHA-256 and the specification as written.</summary>
+    /// <param name="items">Judged records (in input order; the first <see cref="TableLimit"/> in failures-first order are tabled).</param>
     /// <param name="summary">The batch summary.</param>
     /// <param name="spec">The spec.</param>
+    /// <param name="context">Date, version, inputs and layout; null for a bare report.</param>
     /// <returns>HTML.</returns>
-    public static string Batch(IReadOnlyList<RecordOutcome> items, BatchSummary summary, PreparedSpec spec)
+    public static string Batch(IReadOnlyList<RecordOutcome> items, BatchSummary summary, PreparedSpec spec, ReportContext? context = null)
     {
         ArgumentNullException.ThrowIfNull(items);
         ArgumentNullException.ThrowIfNull(summary);
         ArgumentNullException.ThrowIfNull(spec);
         var sb = new StringBuilder();
-        Head(sb, "Lumen batch report");
-        sb.Append("<h1>Batch report</h1><p class=\"muted\">").Append(E(spec.Spec.Description)).Append("</p>");
-        if (spec.TargetDescription is { } target) sb.Append("<p id=\"target\">").Append(E("Target: " + target)).Append("</p>");
+        string heading = "Batch report — " + spec.Spec.Name;
+        Head(sb, heading, context);
+        string verdict = string.Create(Inv, $"{(summary.Failed + summary.Errors == 0 ? "<span class=\"pass\">All units pass</span>" : "<span class=\"fail\">Not all units pass</span>")}: {summary.Passed} pass, {summary.Failed} fail, {summary.Errors} unreadable of {summary.RecordsRead} records (pass rate {F(summary.PassRate * 100, "0.0")} %).");
+        FrontMatter(sb, heading, spec, context, verdict);
         foreach (var c in spec.Cautions) sb.Append("<div class=\"warn\">").Append(E(c)).Append("</div>");
         Cautions(sb, true);
+
+        // Failures first: the criteria that failed, with how many units failed each.
+        var failing = items.Where(i => i.Verdict is { Pass: false }).SelectMany(i => i.Verdict!.Criteria.Where(c => !c.Pass).Select(c => c.Criterion))
+            .GroupBy(c => c, StringComparer.Ordinal).OrderByDescending(g => g.Count()).ToList();
+        if (failing.Count > 0 || summary.Errors > 0)
+        {
+            sb.Append("<h2 id=\"failures\">Failures</h2><table><tr><th>criterion</th><th>units failing</th></tr>");
+            foreach (var g in failing) sb.Append(Inv, $"<tr><td class=\"t\">{E(g.Key)}</td><td>{g.Count()}</td></tr>");
+            if (summary.Errors > 0) sb.Append(Inv, $"<tr><td class=\"t\">unreadable records (see the unit table)</td><td>{summary.Errors}</td></tr>");
+            sb.Append("</table><p class=\"muted\">Every failing and unreadable unit heads the unit table below.</p>");
+        }
+
         sb.Append("<h2>Summary</h2><table id=\"summary\">");
         sb.Append(Inv, $"<tr><th>records read</th><td>{summary.RecordsRead}</td></tr><tr><th>results</th><td>{summary.Results}</td></tr><tr><th>errors</th><td>{summary.Errors}</td></tr>");
         sb.Append(Inv, $"<tr><th>pass</th><td class=\"pass\">{summary.Passed}</td></tr><tr><th>fail</th><td class=\"fail\">{summary.Failed}</td></tr><tr><th>pass rate</th><td>{F(summary.PassRate * 100, "0.0")} %</td></tr>");
-        sb.Append(Inv, $"<tr><th>mean u′, v′</th><td>{F(summary.MeanUPrime, "0.00000")}, {F(summary.MeanVPrime, "0.00000")}</td></tr><tr><th>largest Δu′v′ between units</th><td>{F(summary.MaxPairwiseDeltaUPrimeVPrime, "0.00000")}</td></tr>");
-        sb.Append(Inv, $"<tr><th>steps from batch mean (mean / 95th pct / max)</th><td>{F(summary.StepsFromMean.Mean, "0.00")} / {F(summary.StepsFromMeanP95, "0.00")} / {F(summary.StepsFromMean.Max, "0.00")}</td></tr>");
-        sb.Append(Inv, $"<tr><th>steps from target (mean / 95th pct / max)</th><td>{F(summary.StepsFromTarget.Mean, "0.00")} / {F(summary.StepsFromTargetP95, "0.00")} / {F(summary.StepsFromTarget.Max, "0.00")}</td></tr></table>");
+        string uv = Rounding.Value("chromaticity.uPrime"), st2 = Rounding.Value("steps_from_target");
+        sb.Append(Inv, $"<tr><th>mean u′, v′</th><td>{F(summary.MeanUPrime, uv)}, {F(summary.MeanVPrime, uv)}</td></tr><tr><th>largest Δu′v′ between units</th><td>{F(summary.MaxPairwiseDeltaUPrimeVPrime, uv)}</td></tr>");
+        sb.Append(Inv, $"<tr><th>steps from batch mean (mean / 95th pct / max)</th><td>{F(summary.StepsFromMean.Mean, st2)} / {F(summary.StepsFromMeanP95, st2)} / {F(summary.StepsFromMean.Max, st2)}</td></tr>");
+        sb.Append(Inv, $"<tr><th>steps from target (mean / 95th pct / max)</th><td>{F(summary.StepsFromTarget.Mean, st2)} / {F(summary.StepsFromTargetP95, st2)} / {F(summary.StepsFromTarget.Max, st2)}</td></tr></table>");
         sb.Append("<h3>Statistics</h3><table><tr><th>field</th><th>mean</th><th>SD</th><th>min</th><th>max</th></tr>");
-        foreach (var (n, st) in summary.Statistics) sb.Append(Inv, $"<tr><td class=\"t\">{E(n)}</td><td>{F(st.Mean)}</td><td>{F(st.StandardDeviation)}</td><td>{F(st.Min)}</td><td>{F(st.Max)}</td></tr>");
+        foreach (var (n, st) in summary.Statistics) sb.Append(Inv, $"<tr><td class=\"t\">{E(n)}</td><td>{F(st.Mean, Rounding.Value(n))}</td><td>{F(st.StandardDeviation, Rounding.Spread(n))}</td><td>{F(st.Min, Rounding.Value(n))}</td><td>{F(st.Max, Rounding.Value(n))}</td></tr>");
         sb.Append("</table>");
         if (summary.Capabilities.Count > 0)
         {
-            sb.Append("<h3>Process performance</h3><p>Ppk from the overall SD (not Cpk: no subgroups); 95 % interval after Bissell (1990), approximate.</p><table><tr><th>field</th><th>limits</th><th>n</th><th>mean</th><th>SD</th><th>Ppk</th><th>95 % interval</th></tr>");
-            foreach (var c in summary.Capabilities) sb.Append(Inv, $"<tr><td class=\"t\">{E(c.Field)}</td><td class=\"t\">{F(c.Lower)} … {F(c.Upper)}</td><td>{c.Count}</td><td>{F(c.Mean)}</td><td>{F(c.StandardDeviation)}</td><td>{F(c.Ppk, "0.00")}</td><td>{F(c.PpkLower95, "0.00")} – {F(c.PpkUpper95, "0.00")}</td></tr>");
+            bool within = summary.SubgroupRule is not null;
+            sb.Append("<h3>Process performance and capability</h3><p>Ppk from the overall SD")
+              .Append(within ? "; Cpk from the pooled within-subgroup SD (" + E(summary.SubgroupRule!) + ")" : " (no Cpk: the batch has no subgroups)")
+              .Append("; 95 % intervals after Bissell (1990), approximate.</p><table><tr><th>field</th><th>limits</th><th>n</th><th>mean</th><th>SD</th><th>Ppk</th><th>95 % interval</th>")
+              .Append(within ? "<th>within SD</th><th>Cpk</th><th>95 % interval</th>" : "").Append("</tr>");
+            foreach (var c in summary.Capabilities)
+            {
+                string v = Rounding.Value(c.Field), sp = Rounding.Spread(c.Field), k = Rounding.CapabilityIndex;
+                sb.Append(Inv, $"<tr><td class=\"t\">{E(c.Field)}</td><td class=\"t\">{F(c.Lower, sp)} … {F(c.Upper, sp)}</td><td>{c.Count}</td><td>{F(c.Mean, v)}</td><td>{F(c.StandardDeviation, sp)}</td><td>{F(c.Ppk, k)}</td><td>{F(c.PpkLower95, k)} – {F(c.PpkUpper95, k)}</td>");
+                if (within) sb.Append(Inv, $"<td>{F(c.Within?.StandardDeviation, sp)}</td><td>{F(c.Within?.Cpk, k)}</td><td>{F(c.Within?.CpkLower95, k)} – {F(c.Within?.CpkUpper95, k)}</td>");
+                sb.Append("</tr>");
+            }
+            sb.Append("</table>");
+        }
+        if (summary.Groups.Count > 0)
+        {
+            sb.Append("<h3 id=\"groups\">By ").Append(E(summary.GroupedBy ?? "")).Append("</h3><table><tr><th>").Append(E(summary.GroupedBy ?? "")).Append("</th><th>records</th><th>errors</th><th>pass</th><th>fail</th><th>pass rate</th><th>outliers</th></tr>");
+            foreach (var g in summary.Groups)
+            {
+                var x = g.Summary;
+                sb.Append(Inv, $"<tr><td class=\"t\">{E(g.Value.Length == 0 ? "(none)" : g.Value)}</td><td>{x.RecordsRead}</td><td>{x.Errors}</td><td>{x.Passed}</td><td>{x.Failed}</td><td>{F(x.PassRate * 100, "0.0")} %</td><td>{x.Outliers.Count}</td></tr>");
+            }
             sb.Append("</table>");
         }
         var ok = items.Where(i => i.Assessment is not null).ToList();
+        var space = context?.Space ?? DiagramSpace.UPrimeVPrime;
         sb.Append("<h2>Spread</h2>");
         var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree, i.Verdict?.Pass == false ? PointStatus.Fail : PointStatus.Pass)).ToList();
-        sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(DiagramSpace.UPrimeVPrime, pts, spec, "Batch spread (CIE 1976 u′v′)")), "locus", "batch chromaticity spread"));
-        sb.Append("<div class=\"grid\">");
-        foreach (var (field, title, values, limits) in HistogramPanels(ok, spec))
+        sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(space, pts, spec, SpaceTitle(space, "Batch spread"))), "locus", "batch chromaticity spread"));
+        var panels = Panels(items, spec);
+        sb.Append("<h3>Distributions</h3><div class=\"grid\">");
+        foreach (var (field, title, series, limits) in panels)
+        {
+            var values = series.Where(double.IsFinite).ToArray();
             sb.Append(InlineSvg(800, 500, (cv, z) => Histogram.Draw(cv, z, values, title, limits), "hist-" + field.Replace('.', '-').Replace('_', '-'), "histogram of " + title));
+        }
+        sb.Append("</div><h3>Run charts (input order)</h3><div class=\"grid\">");
+        foreach (var (field, title, series, limits) in panels)
+            sb.Append(InlineSvg(800, 500, (cv, z) => RunChart.Draw(cv, z, series, title, limits, field == "cct.duv" ? "0.0000" : "G5"), "run-" + field.Replace('.', '-').Replace('_', '-'), "run chart of " + title));
         sb.Append("</div>");
         sb.Append("<h2>Outliers</h2>");
         if (summary.Outliers.Count == 0) sb.Append("<p>No chromaticity outliers (robust z > 3.5).</p>");
         else
         {
             sb.Append("<table id=\"outliers\"><tr><th>id</th><th>Δu′v′ from median</th><th>robust z</th></tr>");
-            foreach (var o in summary.Outliers.Take(OutlierTableLimit)) sb.Append(Inv, $"<tr><td class=\"t\">{E(o.Id)}</td><td>{F(o.DeltaUPrimeVPrime, "0.00000")}</td><td>{F(o.RobustZ, "0.0")}</td></tr>");
+            foreach (var o in summary.Outliers.Take(OutlierTableLimit)) sb.Append(Inv, $"<tr><td class=\"t\">{E(o.Id)}</td><td>{F(o.DeltaUPrimeVPrime, uv)}</td><td>{F(o.RobustZ, "0.0")}</td></tr>");
             sb.Append("</table>");
             if (summary.Outliers.Count > OutlierTableLimit)
-                sb.Append(Inv, $"<p class=\"muted\" id=\"outliers-more\">The {OutlierTableLimit} largest of {summary.Outliers.Count} outliers; {summary.Outliers.Count - OutlierTableLimit} more are listed in the JSON summary (<code>--summary NAME.json</code>).</p>");
+                sb.Append(Inv, $"<p class=\"muted\" id=\"outliers-more\">The {OutlierTableLimit} largest of {summary.Outliers.Count} outliers; {summary.Outliers.Count - OutlierTableLimit} more are listed in the JSON summary (<code>--summary NAME.json</code>) and flagged in the results file's <code>outlier</code> column.</p>");
         }
         sb.Append("<h2>Units</h2>");
-        if (items.Count > TableLimit) sb.Append(Inv, $"<p class=\"muted\">The first {TableLimit} of {items.Count} records; the results file lists all.</p>");
+        var ordered = items.Select((item, i) => (Item: item, K: i + 1)).OrderBy(x => Rank(x.Item)).ToList();
+        sb.Append(Inv, $"<p class=\"muted\">Failures first, then unreadable records, then passes (input order within each){(items.Count > TableLimit ? $"; the first {TableLimit} of {items.Count} records — the results file lists all" : "")}.</p>");
         sb.Append("<table id=\"units\"><tr><th>id</th><th>location</th><th>status</th><th>CCT (K)</th><th>Duv</th><th>Ra</th><th>R9</th><th>Rf</th><th>Rg</th><th>steps</th><th>failed criteria / error</th></tr>");
-        int k = 0;
-        foreach (var it in items.Take(TableLimit))
+        var detailed = ordered.Where(x => x.Item.Assessment is not null).Take(DetailLimit).Select(x => x.K).ToHashSet();
+        foreach (var (it, k) in ordered.Take(TableLimit))
         {
-            k++;
-            string id = k <= DetailLimit && it.Assessment is not null ? $"<a href=\"#unit-{k}\">{E(it.Record.Name)}</a>" : E(it.Record.Name);
+            string id = detailed.Contains(k) ? $"<a href=\"#unit-{k}\">{E(it.Record.Name)}</a>" : E(it.Record.Name);
             if (it.Assessment is { } a)
-                sb.Append(Inv, $"<tr><td class=\"t\">{id}</td><td class=\"t\">{E(it.Record.Location)}</td><td class=\"t {it.Status}\">{it.Status}</td><td>{F(a.Cct.CctKelvin, "0")}</td><td>{F(a.Cct.Duv, "+0.0000;-0.0000;0")}</td><td>{F(a.Cri?.Ra, "0.0")}</td><td>{F(a.Cri?.R9, "0.0")}</td><td>{F(a.Fidelity?.Rf, "0.0")}</td><td>{F(a.Fidelity?.Rg, "0.0")}</td><td>{F(it.Verdict?.StepsFromTarget, "0.0")}</td><td class=\"t\">{E(string.Join(", ", (it.Verdict?.Criteria ?? []).Where(c => !c.Pass).Select(c => c.Criterion)))}</td></tr>");
+                sb.Append(Inv, $"<tr><td class=\"t\">{id}</td><td class=\"t\">{E(it.Record.Location)}</td><td class=\"t {it.Status}\">{it.Status}</td><td>{F(a.Cct.CctKelvin, Rounding.Value("cct.kelvin"))}</td><td>{F(a.Cct.Duv, Rounding.Value("cct.duv"))}</td><td>{F(a.Cri?.Ra, Rounding.Value("cri.ra"))}</td><td>{F(a.Cri?.R9, Rounding.Value("cri.r9"))}</td><td>{F(a.Fidelity?.Rf, Rounding.Value("fidelity.rf"))}</td><td>{F(a.Fidelity?.Rg, Rounding.Value("fidelity.rg"))}</td><td>{F(it.Verdict?.StepsFromTarget, st2)}</td><td class=\"t\">{E(string.Join(", ", (it.Verdict?.Criteria ?? []).Where(c => !c.Pass).Select(c => c.Criterion)))}</td></tr>");
             else
                 sb.Append(Inv, $"<tr><td class=\"t\">{id}</td><td class=\"t\">{E(it.Record.Location)}</td><td class=\"t error\">error</td><td colspan=\"7\"></td><td class=\"t\">{E(it.Error?.ToString() ?? "")}</td></tr>");
         }
-        sb.Append("</table><h2>Unit detail</h2>");
-        k = 0;
-        foreach (var it in items.Take(DetailLimit))
-        {
-            k++;
-            if (it.Assessment is { } a) Detail(sb, a, it.Record, spec, k);
-        }
+        sb.Append(Inv, $"</table><h2>Unit detail</h2><p class=\"muted\">The first {DetailLimit} units with results, failures first.</p>");
+        foreach (var (it, k) in ordered.Where(x => detailed.Contains(x.K)))
+            Detail(sb, it.Assessment!, it.Record, spec, k);
+        Appendix(sb, context);
         sb.Append("</main></body></html>");
         return sb.ToString();
     }

@@ -25,6 +25,16 @@ public class SpecReaderTests
         Assert.Equal(2, spec.Limits[0].Line);
     }
 
+    [Fact]
+    public void Project_client_and_preparer_are_optional_texts_for_the_report()
+    {
+        var spec = Read("""{"name": "n", "project": "Atrium", "client": "Estates", "preparedBy": "QA", "limits": [{"field": "cri.ra", "min": 80}]}""", out var errors);
+        Assert.Empty(errors);
+        Assert.Equal(("Atrium", "Estates", "QA"), (spec!.Project, spec.Client, spec.PreparedBy));
+        Assert.Null(Read("""{"project": 7, "limits": [{"field": "cri.ra", "min": 80}]}""", out errors));
+        Assert.Contains(errors, e => e.Message.Contains("project must be a text", StringComparison.Ordinal) && e.Line == 1);
+    }
+
     [Theory]
     [InlineData("""{"target": {"x": 0.4338, "y": 0.4030}, "chromaticity": {"uPrimeVPrimeRadius": 0.003}}""", ToleranceKind.UPrimeVPrimeRadius)]
     [InlineData("""{"target": {"cct": 3000, "duv": 0.0}, "chromaticity": {"ellipseSteps": 5}}""", ToleranceKind.EllipseSteps)]

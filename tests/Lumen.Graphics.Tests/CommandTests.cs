@@ -52,9 +52,10 @@ public class CommandTests
             var (code, _, _) = Run("report", Ex("batch"), "--spec", Ex("batch/spec-dl30.json"), "--out", path);
             Assert.Equal(Lumen.Cli.ExitCodes.InputErrors, code); // the lot has four unreadable rows, reported and kept
             var html = File.ReadAllText(path);
-            foreach (var id in new[] { "id=\"summary\"", "id=\"locus\"", "id=\"units\"", "id=\"outliers\"", "id=\"hist-cri-ra\"", "id=\"unit-1\"", "not a certification" })
+            foreach (var id in new[] { "id=\"summary\"", "id=\"locus\"", "id=\"units\"", "id=\"outliers\"", "id=\"hist-cri-ra\"", "id=\"unit-3\"", "not a certification" })
                 Assert.Contains(id, html, StringComparison.Ordinal);
             Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+            Assert.DoesNotContain("id=\"unit-1\"", html, StringComparison.Ordinal); // unit 1 passes: the details show failures first
             // The lot's 23 shifted lot-B units are outliers: the table shows the largest 20 and counts the rest.
             var table = html[html.IndexOf("id=\"outliers\"", StringComparison.Ordinal)..];
             table = table[..table.IndexOf("</table>", StringComparison.Ordinal)];

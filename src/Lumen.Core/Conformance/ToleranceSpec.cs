@@ -10,6 +10,15 @@ public sealed record ToleranceSpec(string Name, ChromaticityTarget? Target, Chro
     /// <summary>Warnings from reading the specification (e.g. a deprecated key), located by file, line and column.</summary>
     public IReadOnlyList<string> Warnings { get; init; } = [];
 
+    /// <summary>The project the specification is for (optional; shown at the head of a report).</summary>
+    public string? Project { get; init; }
+
+    /// <summary>The client (optional; shown at the head of a report).</summary>
+    public string? Client { get; init; }
+
+    /// <summary>Who prepared the check (optional; shown at the head of a report).</summary>
+    public string? PreparedBy { get; init; }
+
     /// <summary>One line that states the whole specification: name, target, chromaticity tolerance and every limit.</summary>
     public string Description
     {
