@@ -12,6 +12,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
 {
     private readonly InputOptions _inputs = new();
     private readonly SpecOptions _spec = new(required: false);
+    private readonly UncertaintyOptions _uncertainty = new();
 
     public Option<string> ObserverOption { get; } = new("--observer")
     {
@@ -69,6 +70,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         var cmd = new Command("analyze", "Chromaticity (XYZ, xy, u'v'), CCT, Duv, colour rendition (Ra, R1–R14, Rf, Rg), photometry and CIE S 026 values of every spectrum in the inputs.");
         _inputs.AddTo(cmd);
         _spec.AddTo(cmd);
+        _uncertainty.AddTo(cmd);
         cmd.Add(ObserverOption); cmd.Add(FormatOption); cmd.Add(OutputOption); cmd.Add(MetricsOption); cmd.Add(C2Option); cmd.Add(DetailOption);
         cmd.SetAction(Execute);
         return cmd;
@@ -79,6 +81,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         if (!_spec.TryLoad(parse, stdout, stderr, out var spec, out bool printed)) return ExitCodes.UsageError;
         if (printed) return ExitCodes.Success;
         if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(OutputOption))) return ExitCodes.UsageError;
+        if (!_uncertainty.TryLoad(parse, spec, stderr, out var model, out var run, out var rule)) return ExitCodes.UsageError;
         if (!TryParseMetrics(parse.GetValue(MetricsOption) ?? "all", out var metrics, out var badMetric))
         {
             stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity, photometry, nonvisual, spectral or all.");
@@ -91,13 +94,14 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         var options = new AssessmentOptions(observer, new CctOptions(C2: c2), spec is null ? metrics : metrics | spec.RequiredMetrics);
 
         var format = CommonOptions.ToOutputFormat(parse.GetValue(FormatOption));
-        bool anyError = false, anyFail = false;
+        bool anyError = false, anyFail = false, anyInconclusive = false;
         RecordOutcome Next(InputRecord record)
         {
-            var outcome = RecordOutcome.Of(record, options, spec);
+            var outcome = UncertaintyOptions.Propagate(RecordOutcome.Of(record, options, spec), options, spec, model, run, rule);
             CommonOptions.ReportError(stderr, outcome.Error);
             anyError |= outcome.Error is not null;
-            anyFail |= outcome.Verdict?.Pass == false;
+            anyFail |= outcome.Status == "fail";
+            anyInconclusive |= outcome.Status == "inconclusive";
             return outcome;
         }
         // JSON and CSV stream record by record (flat memory); the text table is sized from all rows.
@@ -105,7 +109,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
             ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(inputs.Records(stdin).Select(Next).ToList(), format, w, parse.GetValue(DetailOption)))
             : OutputTarget.WriteText(outPath, stdout, w =>
             {
-                var writer = new AnalysisStreamWriter(w, format, withVerdict: spec is not null, spec: spec);
+                var writer = new AnalysisStreamWriter(w, format, withVerdict: spec is not null, spec: spec, withUncertainty: model is not null);
                 foreach (var record in inputs.Records(stdin)) writer.Write(Next(record));
                 writer.Complete();
             });
@@ -114,7 +118,8 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         {
             if (spec.TargetDescription is { } target) stdout.WriteLine($"Specification: {spec.Spec.Description}. Target: {target}.");
             foreach (var c in spec.Cautions) stdout.WriteLine($"! {c}");
+            stdout.WriteLine($"Decision rule: {Lumen.Uncertainty.Decisions.Describe(rule)}.");
         }
-        return anyError ? ExitCodes.InputErrors : anyFail ? ExitCodes.SpecificationFailed : ExitCodes.Success;
+        return anyError ? ExitCodes.InputErrors : anyFail ? ExitCodes.SpecificationFailed : anyInconclusive ? ExitCodes.Inconclusive : ExitCodes.Success;
     }
 }

@@ -15,11 +15,16 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
 {
     private readonly InputOptions _inputs = new();
     private readonly SpecOptions _spec = new(required: true);
+    private readonly UncertaintyOptions _uncertainty = new();
     public Option<string?> Out { get; } = OutputTarget.Option("Results file, one row per input record (.json for JSON, else CSV); default: CSV on standard output.");
     public Option<string?> Summary { get; } = new("--summary") { Description = "Summary file (.json for JSON, else text); default: standard output after a results file, or standard error." };
     public Option<int> Threads { get; } = new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
     public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Metadata column (e.g. lot, station) or preamble key: a summary per value, and the subgroups of Cpk unless --subgroup-size is given." };
     public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Consecutive results per subgroup for Cpk (within-subgroup SD), at least 2." };
+
+    private Lumen.Uncertainty.UncertaintyModel? _model;
+    private Lumen.Uncertainty.MonteCarloOptions _run = new();
+    private Lumen.Uncertainty.DecisionRule _rule;
 
     /// <summary>Records computed per parallel chunk (input order is kept).</summary>
     internal const int ChunkSize = 512;
@@ -46,6 +51,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         var cmd = new Command("batch", "Check many spectra against a tolerance spec: pass/fail per unit, batch statistics, outliers, Ppk with 95 % intervals.");
         _inputs.AddTo(cmd);
         _spec.AddTo(cmd);
+        _uncertainty.AddTo(cmd);
         cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads); cmd.Add(GroupBy); cmd.Add(SubgroupSize);
         cmd.SetAction(Execute);
         return cmd;
@@ -56,6 +62,10 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         if (!_spec.TryLoad(parse, stdout, stderr, out var spec, out bool printed)) return ExitCodes.UsageError;
         if (printed) return ExitCodes.Success;
         if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out), parse.GetValue(Summary))) return ExitCodes.UsageError;
+        if (!_uncertainty.TryLoad(parse, spec, stderr, out var model, out var mc, out var rule)) return ExitCodes.UsageError;
+        _model = model;
+        _run = mc with { Threads = 1 }; // the records run in parallel; each one's draws on its thread (same result either way)
+        _rule = rule;
         string? outPath = parse.GetValue(Out), summaryPath = parse.GetValue(Summary);
         foreach (var p in new[] { outPath, summaryPath })
             if (OutputTarget.ConflictWithInputs(p, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen: {conflict}."); return ExitCodes.UsageError; }
@@ -82,11 +92,12 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                 if (o.Status == "pass" && ++passes > TerminalPassRows) return;
                 if (shown.Count < TerminalRowLimit) shown.Add(o);
             });
-            var ordered = shown.OrderBy(o => o.Status switch { "fail" => 0, "error" => 1, _ => 2 }).ToList();
+            var ordered = shown.OrderBy(o => o.Status switch { "fail" => 0, "inconclusive" => 1, "error" => 2, _ => 3 }).ToList();
             VerdictTable.WriteTable(stdout, ordered, wholeLine: o => o.Error is { } e ? $"error  {e}" : null);
             if (passes > TerminalPassRows) stdout.WriteLine($"… and {passes - TerminalPassRows} more passing units (write every row with -o FILE or -o -).");
             stdout.WriteLine();
             stdout.WriteLine($"Specification: {spec!.Spec.Description}.");
+            stdout.WriteLine($"Decision rule: {Lumen.Uncertainty.Decisions.Describe(rule)}.");
             if (spec.TargetDescription is { } target) stdout.WriteLine($"Target: {target}.");
             foreach (var c in spec.Cautions) stdout.WriteLine($"! {c}");
             stdout.WriteLine();
@@ -94,7 +105,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             stdout.Flush();
             if (interrupt.IsCancellationRequested) return ExitCodes.Interrupted;
             if (summary.Errors > 0) return ExitCodes.InputErrors;
-            return summary.Failed > 0 ? ExitCodes.SpecificationFailed : ExitCodes.Success;
+            return Code(summary);
         }
         try
         {
@@ -108,7 +119,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                 {
                     using (var rows = new StreamWriter(scratch, false, new UTF8Encoding(false), 1 << 16))
                     {
-                        var writer = new BatchResultWriter(rows, json, spec!, metadataKeys);
+                        var writer = new BatchResultWriter(rows, json, spec!, metadataKeys, withUncertainty: model is not null);
                         summary = Run(inputs, spec!, writer, builder, threads);
                         writer.Complete();
                     }
@@ -143,9 +154,11 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         }
         if (summaryTarget is null) WriteSummary(stderr);
         else if (OutputTarget.WriteText(summaryTarget, stdout, WriteSummary) is { } f) return CommonOptions.OutputFailed(stderr, f);
-        if (summary!.Errors > 0) return ExitCodes.InputErrors;
-        return summary.Failed > 0 ? ExitCodes.SpecificationFailed : ExitCodes.Success;
+        return Code(summary!);
     }
+
+    private static int Code(BatchSummary s) =>
+        s.Errors > 0 ? ExitCodes.InputErrors : s.Failed > 0 ? ExitCodes.SpecificationFailed : s.Inconclusive > 0 ? ExitCodes.Inconclusive : ExitCodes.Success;
 
     /// <summary>Reads, assesses and judges every record, writing rows in input order; memory stays flat.</summary>
     internal BatchSummary Run(InputSelection inputs, PreparedSpec spec, BatchResultWriter writer, BatchSummaryBuilder builder, int threads, Action<RecordOutcome>? observe = null)
@@ -212,7 +225,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             foreach (var chunk in toCompute.GetConsumingEnumerable())
             {
                 var results = new RecordOutcome[chunk.Count];
-                Parallel.For(0, chunk.Count, po, i => results[i] = RecordOutcome.Of(chunk[i], options, spec));
+                Parallel.For(0, chunk.Count, po, i => results[i] = UncertaintyOptions.Propagate(RecordOutcome.Of(chunk[i], options, spec), options, spec, _model, _run, _rule));
                 toWrite.Add(results);
             }
         }

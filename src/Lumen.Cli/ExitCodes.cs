@@ -24,6 +24,10 @@ public static class ExitCodes
     /// <summary>Interrupted (SIGINT or SIGTERM): what was computed is in a <c>.partial</c> file beside the output, which keeps its previous content.</summary>
     public const int Interrupted = 6;
 
+    /// <summary>Under guarded acceptance, no result fails but some are too close to a limit to call with the stated
+    /// measurement uncertainty (inconclusive); every record was read and written.</summary>
+    public const int Inconclusive = 7;
+
     /// <summary>One line per code, for <c>--help</c> and messages.</summary>
-    public const string Legend = "Exit codes: 0 success; 1 some results fail the specification; 2 usage error; 3 some input records unreadable (error rows written); 4 an output could not be written; 5 internal error; 6 interrupted (partial results in FILE.partial).";
+    public const string Legend = "Exit codes: 0 success; 1 some results fail the specification; 2 usage error; 3 some input records unreadable (error rows written); 4 an output could not be written; 5 internal error; 6 interrupted (partial results in FILE.partial); 7 none fails but some are inconclusive under guarded acceptance.";
 }

@@ -44,9 +44,33 @@ public static class AnalysisColumns
         return Column<RecordOutcome>.Number(path, o => o.Assessment is { } a ? get(a) : null, format, title);
     }
 
+    /// <summary>
+    /// A schema with the measurement uncertainty of each result-field column beside it: <c>PATH_u</c> (standard
+    /// uncertainty), <c>PATH_low</c> and <c>PATH_high</c> (the 95 % coverage interval); empty cells where a record has
+    /// no uncertainty.
+    /// </summary>
+    /// <param name="schema">The schema.</param>
+    /// <returns>The schema with the uncertainty columns.</returns>
+    public static ColumnSchema<RecordOutcome> WithUncertainty(ColumnSchema<RecordOutcome> schema)
+    {
+        ArgumentNullException.ThrowIfNull(schema);
+        var list = new List<Column<RecordOutcome>>();
+        foreach (var c in schema.Columns)
+        {
+            list.Add(c);
+            if (!ResultFields.IsKnown(c.Name)) continue;
+            string path = c.Name;
+            Lumen.Uncertainty.FieldUncertainty? U(RecordOutcome o) => o.Uncertainty is { } u && u.Fields.TryGetValue(path, out var f) ? f : null;
+            list.Add(Column<RecordOutcome>.Number(path + "_u", o => U(o)?.Standard));
+            list.Add(Column<RecordOutcome>.Number(path + "_low", o => U(o)?.Low));
+            list.Add(Column<RecordOutcome>.Number(path + "_high", o => U(o)?.High));
+        }
+        return new ColumnSchema<RecordOutcome>(list);
+    }
+
     private static IEnumerable<Column<RecordOutcome>> VerdictColumns()
     {
-        yield return Column<RecordOutcome>.Text("verdict", o => o.Verdict is { } v ? (v.Pass ? "pass" : "fail") : null, "Verdict");
+        yield return Column<RecordOutcome>.Text("verdict", o => o.Verdict is not null ? o.Status : null, "Verdict");
         yield return Column<RecordOutcome>.Text("failed", o => o.Verdict is { } v ? string.Join(" | ", v.Criteria.Where(c => !c.Pass).Select(c => c.Criterion)) : null, "Failed");
     }
 

@@ -21,7 +21,8 @@ public sealed class AnalysisStreamWriter
     /// <exception cref="ArgumentException">The format is <see cref="OutputFormat.Text"/>.</exception>
     /// <param name="withVerdict">CSV: add the verdict columns (a specification was given).</param>
     /// <param name="spec">JSON: the specification behind the verdicts, written as each row's <c>verdict.target</c>; null for none.</param>
-    public AnalysisStreamWriter(TextWriter output, OutputFormat format, bool withVerdict = false, Lumen.Conformance.PreparedSpec? spec = null)
+    /// <param name="withUncertainty">CSV: add <c>_u</c>, <c>_low</c>, <c>_high</c> beside each result field.</param>
+    public AnalysisStreamWriter(TextWriter output, OutputFormat format, bool withVerdict = false, Lumen.Conformance.PreparedSpec? spec = null, bool withUncertainty = false)
     {
         _spec = spec;
         ArgumentNullException.ThrowIfNull(output);
@@ -29,6 +30,7 @@ public sealed class AnalysisStreamWriter
         _out = output;
         _json = format == OutputFormat.Json;
         _csv = withVerdict ? AnalysisColumns.CsvWithVerdict : AnalysisColumns.Csv;
+        if (withUncertainty) _csv = AnalysisColumns.WithUncertainty(_csv);
         if (_json) _out.Write('[');
         else _csv.WriteCsvHeader(_out);
     }

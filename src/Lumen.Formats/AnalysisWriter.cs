@@ -43,12 +43,41 @@ public static class AnalysisWriter
         output.WriteLine();
         output.WriteLine($"Chromaticity: CIE {(obs == Observer.Cie1931TwoDegree ? "1931 2°" : "1964 10°")} observer; CCT/Duv: CIE 1931 2°, Duv > 0 above the Planckian locus.");
         output.WriteLine("Ra, R9: CIE 13.3-1995. Rf: CIE 224:2017 (= ANSI/IES TM-30-20 Rf). Rg: ANSI/IES TM-30-20. '!' marks a spectrum with warnings below.");
-        var notes = items.Where(i => i.Assessment is not null).SelectMany(i => i.Assessment!.Warnings.Select(w => $"! {i.Record.Name}: {w}")).ToList();
+        WriteUncertaintyText(items, output);
+        var notes = items.Where(i => i.Assessment is not null).SelectMany(i => i.Assessment!.Warnings.Select(w => $"! {i.Record.Name}: {w}"))
+            .Concat(items.Where(i => i.Uncertainty is not null).SelectMany(i => i.Uncertainty!.Warnings.Select(w => $"! {i.Record.Name}: {w}"))).ToList();
         if (notes.Count > 0)
         {
             output.WriteLine();
             foreach (var n in notes) output.WriteLine(n);
         }
+    }
+
+    /// <summary>The value ± standard uncertainty of the table's main results, when the run propagated uncertainty.</summary>
+    private static readonly (string Path, string Heading, string Format)[] UncertaintyTable =
+    [
+        ("cct.kelvin", "CCT (K)", "0"), ("cct.duv", "Duv", "+0.0000;-0.0000;0.0000"), ("chromaticity.x", "x", "0.0000"), ("chromaticity.y", "y", "0.0000"),
+        ("cri.ra", "Ra", "0.0"), ("cri.r9", "R9", "0.0"), ("fidelity.rf", "Rf", "0.0"), ("fidelity.rg", "Rg", "0.0"),
+    ];
+
+    private static void WriteUncertaintyText(IReadOnlyList<RecordOutcome> items, TextWriter output)
+    {
+        var withU = items.Where(i => i.Uncertainty is not null && i.Assessment is not null).ToList();
+        if (withU.Count == 0) return;
+        var u0 = withU[0].Uncertainty!;
+        output.WriteLine();
+        output.WriteLine($"Measurement uncertainty: value ± standard uncertainty (k = 1), Monte Carlo with {u0.Draws:N0} draws (JCGM 101:2008), seed {u0.Seed}; 95 % intervals in JSON and CSV.");
+        output.WriteLine($"Model: {u0.Model.Description}.");
+        var columns = new List<Column<RecordOutcome>> { Column<RecordOutcome>.Text("name", o => o.Record.Name, "Name") };
+        foreach (var (path, heading, format) in UncertaintyTable)
+        {
+            var get = ResultFields.Accessor(path);
+            string spread = format.StartsWith('+') ? "0.0000" : format;
+            columns.Add(Column<RecordOutcome>.Text(path, o => o.Assessment is { } a && get(a) is { } v && double.IsFinite(v)
+                ? v.ToString(format, Inv) + (o.Uncertainty!.Fields.TryGetValue(path, out var f) && double.IsFinite(f.Standard) ? " ± " + f.Standard.ToString(spread, Inv) : "")
+                : "—", heading));
+        }
+        new ColumnSchema<RecordOutcome>(columns).WriteTable(output, withU);
     }
 
     /// <summary>Writes every result of each spectrum as readable lines (the text form of the JSON).</summary>
@@ -211,7 +240,8 @@ public static class AnalysisWriter
             w.WriteString("whitePoint", sd.WhitePoint);
             w.WriteEndObject();
         }
-        if (item.Verdict is { } v) JsonVerdict.Write(w, v, spec);
+        if (item.Verdict is { } v) JsonVerdict.Write(w, v, spec, item);
+        if (item.Uncertainty is { } u) JsonUncertainty.Write(w, u);
         w.StringArray("warnings", a.Warnings);
         WriteProvenance(w, a.Provenance);
         w.WriteEndObject();

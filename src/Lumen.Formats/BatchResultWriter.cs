@@ -9,6 +9,7 @@ public sealed class BatchResultWriter
     private readonly TextWriter _out;
     private readonly bool _json;
     private readonly IReadOnlyList<string> _metadataKeys;
+    private readonly bool _withUncertainty;
     private ColumnSchema<RecordOutcome>? _csv;
     private readonly PreparedSpec? _prepared;
     private bool _first = true;
@@ -28,7 +29,8 @@ public sealed class BatchResultWriter
     /// <param name="prepared">The prepared specification.</param>
     /// <param name="metadataKeys">Metadata keys known before the first record (from the input files' headers); the first
     /// record's keys are added to them, and the CSV header is written with the first record.</param>
-    public BatchResultWriter(TextWriter output, bool json, PreparedSpec prepared, IReadOnlyList<string>? metadataKeys = null)
+    /// <param name="withUncertainty">CSV: add <c>_u</c>, <c>_low</c>, <c>_high</c> beside each result field.</param>
+    public BatchResultWriter(TextWriter output, bool json, PreparedSpec prepared, IReadOnlyList<string>? metadataKeys = null, bool withUncertainty = false)
     {
         ArgumentNullException.ThrowIfNull(output);
         ArgumentNullException.ThrowIfNull(prepared);
@@ -36,6 +38,7 @@ public sealed class BatchResultWriter
         _out = output;
         _json = json;
         _metadataKeys = metadataKeys ?? [];
+        _withUncertainty = withUncertainty;
         if (json) _out.WriteLine("[");
     }
 
@@ -45,6 +48,7 @@ public sealed class BatchResultWriter
         if (_csv is not null) return _csv;
         var keys = _metadataKeys.Concat(first?.Record.Metadata.Select(kv => kv.Key) ?? []).Distinct(StringComparer.Ordinal).ToArray();
         _csv = BatchColumns.For(_prepared!.Spec, keys);
+        if (_withUncertainty) _csv = AnalysisColumns.WithUncertainty(_csv);
         _csv.WriteCsvHeader(_out);
         return _csv;
     }
@@ -101,7 +105,8 @@ public sealed class BatchResultWriter
                 w.WriteEndObject();
             }
             w.WriteEndObject();
-            JsonVerdict.Write(w, v, prepared);
+            JsonVerdict.Write(w, v, prepared, item);
+            if (item.Uncertainty is { } u) JsonUncertainty.Write(w, u);
             w.StringArray("warnings", a.Warnings);
         }
         else if (item.Error is { } e) w.Error(e);

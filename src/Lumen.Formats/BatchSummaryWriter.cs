@@ -23,7 +23,8 @@ public static class BatchSummaryWriter
         if (spec.TargetDescription is { } target) output.WriteLine($"Target: {target}");
         foreach (var c in spec.Cautions) output.WriteLine($"! {c}");
         output.WriteLine(string.Create(Inv, $"Records read {s.RecordsRead} = results {s.Results} + errors {s.Errors}"));
-        output.WriteLine(string.Create(Inv, $"Pass {s.Passed}, fail {s.Failed}, pass rate {(double.IsNaN(s.PassRate) ? "—" : (s.PassRate * 100).ToString("0.0", Inv) + " %")}"));
+        output.WriteLine(string.Create(Inv, $"Pass {s.Passed}, fail {s.Failed}{(s.Rule == Lumen.Uncertainty.DecisionRule.Guarded ? $", inconclusive {s.Inconclusive}" : "")}, pass rate {(double.IsNaN(s.PassRate) ? "—" : (s.PassRate * 100).ToString("0.0", Inv) + " %")}"));
+        output.WriteLine($"Decision rule: {Lumen.Uncertainty.Decisions.Describe(s.Rule)}.");
         output.WriteLine();
         output.WriteLine($"{"field",-14} {"mean",10} {"SD",10} {"min",10} {"max",10}");
         foreach (var (name, st) in s.Statistics)
@@ -113,6 +114,8 @@ public static class BatchSummaryWriter
         w.WriteNumber("errors", s.Errors);
         w.WriteNumber("passed", s.Passed);
         w.WriteNumber("failed", s.Failed);
+        w.WriteNumber("inconclusive", s.Inconclusive);
+        w.WriteString("rule", Lumen.Uncertainty.Decisions.Describe(s.Rule));
         w.NumberOrNull("passRate", s.PassRate);
         w.WriteStartObject("statistics");
         foreach (var (name, st) in s.Statistics)

@@ -1,4 +1,5 @@
 using Lumen.Conformance;
+using Lumen.Uncertainty;
 
 namespace Lumen.Analysis;
 
@@ -12,8 +13,24 @@ namespace Lumen.Analysis;
 /// <param name="Error">Why the record has no result (unreadable, or its computation failed); null when it has one.</param>
 public sealed record RecordOutcome(InputRecord Record, Assessment? Assessment, Verdict? Verdict, ReadDiagnostic? Error)
 {
-    /// <summary><c>pass</c>, <c>fail</c>, <c>ok</c> (a result without a specification) or <c>error</c>.</summary>
-    public string Status => Assessment is null ? "error" : Verdict is null ? "ok" : Verdict.Pass ? "pass" : "fail";
+    /// <summary>The measurement uncertainty of the results (Monte Carlo), or null when none was asked for.</summary>
+    public UncertaintyResult? Uncertainty { get; init; }
+
+    /// <summary>The decision rule the verdict is read under (simple acceptance unless guarded acceptance was asked for).</summary>
+    public DecisionRule Rule { get; init; } = DecisionRule.Simple;
+
+    /// <summary>The verdict under <see cref="Rule"/> with <see cref="Uncertainty"/>: the unit's decision and each
+    /// criterion's; null without a verdict.</summary>
+    public (Decision Unit, IReadOnlyList<Decision> Criteria)? Judgement => Verdict is { } v ? Decisions.Of(v, Uncertainty, Rule) : null;
+
+    /// <summary><c>pass</c>, <c>fail</c>, <c>inconclusive</c> (guarded acceptance: too close to a limit to call),
+    /// <c>ok</c> (a result without a specification) or <c>error</c>.</summary>
+    public string Status => Assessment is null ? "error" : Verdict is null ? "ok" : Rule == DecisionRule.Simple ? (Verdict.Pass ? "pass" : "fail") : Judgement!.Value.Unit switch
+    {
+        Lumen.Uncertainty.Decision.Pass => "pass",
+        Lumen.Uncertainty.Decision.Fail => "fail",
+        _ => "inconclusive",
+    };
 
     /// <summary>Assesses a record and, with a specification, judges it; an error record passes through.</summary>
     /// <param name="record">The input record.</param>

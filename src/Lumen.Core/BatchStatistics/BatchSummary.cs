@@ -5,7 +5,7 @@ namespace Lumen.BatchStatistics;
 /// <param name="Results">Records with a result.</param>
 /// <param name="Errors">Records that could not be read or computed.</param>
 /// <param name="Passed">Results that passed the spec.</param>
-/// <param name="Failed">Results that failed the spec.</param>
+/// <param name="Failed">Results that failed the spec (under guarded acceptance, <see cref="Inconclusive"/> ones are neither).</param>
 /// <param name="Statistics">Mean/SD/min/max of key fields (cct.kelvin, cct.duv, cri.ra, cri.r9, fidelity.rf, fidelity.rg).</param>
 /// <param name="MeanUPrime">Mean CIE 1976 u′ of the units with a defined chromaticity.</param>
 /// <param name="MeanVPrime">Mean CIE 1976 v′ of the units with a defined chromaticity.</param>
@@ -26,6 +26,12 @@ public sealed record BatchSummary(
 {
     /// <summary>The screening caution printed with every verdict output.</summary>
     public const string Caution = "A pass here is a screening result on the data given, not a certification: accredited photometric testing, the applicable standards and local codes decide conformance.";
+
+    /// <summary>Results too close to a limit to call under guarded acceptance (neither passed nor failed); 0 under simple acceptance.</summary>
+    public long Inconclusive { get; init; }
+
+    /// <summary>The decision rule the verdicts were read under.</summary>
+    public Lumen.Uncertainty.DecisionRule Rule { get; init; } = Lumen.Uncertainty.DecisionRule.Simple;
 
     /// <summary>The metadata key the batch was grouped by, or null.</summary>
     public string? GroupedBy { get; init; }

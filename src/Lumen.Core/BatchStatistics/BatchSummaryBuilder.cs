@@ -34,7 +34,8 @@ public sealed class BatchSummaryBuilder
     private readonly Dictionary<string, PooledVariance>? _pooled; // per capability field, with subgroups
     private readonly Dictionary<string, BatchSummaryBuilder>? _groups;
     private string? _openSubgroup;
-    private long _records, _errors, _passed, _failed, _results;
+    private long _records, _errors, _passed, _failed, _results, _inconclusive;
+    private Lumen.Uncertainty.DecisionRule _rule = Lumen.Uncertainty.DecisionRule.Simple;
 
     /// <summary>Robust z above which a unit is a chromaticity outlier (Iglewicz and Hoaglin; common practice).</summary>
     public const double OutlierZ = 3.5;
@@ -74,9 +75,13 @@ public sealed class BatchSummaryBuilder
                 _groups[value] = child = new BatchSummaryBuilder(_spec, _options with { GroupBy = null });
             child.Add(outcome);
         }
+        _rule = outcome.Rule;
         if (outcome.Assessment is { } a)
-            AddResult(outcome.Record.Name, a.Chromaticity2Degree, outcome.Verdict?.Pass ?? true, p => ResultFields.Get(a, p), outcome.Verdict?.StepsFromTarget,
-                _options.GroupBy is { } key ? outcome.Record.MetadataValue(key) ?? "" : null);
+        {
+            string status = outcome.Status;
+            AddResult(outcome.Record.Name, a.Chromaticity2Degree, status is "pass" or "ok", p => ResultFields.Get(a, p), outcome.Verdict?.StepsFromTarget,
+                _options.GroupBy is { } key ? outcome.Record.MetadataValue(key) ?? "" : null, status == "inconclusive");
+        }
         else AddError();
     }
 
@@ -101,14 +106,17 @@ public sealed class BatchSummaryBuilder
     /// <param name="field">Field resolver (summary and limited fields).</param>
     /// <param name="stepsFromTarget">Steps from the target, or null.</param>
     /// <param name="groupValue">The record's value of the grouping key (the subgroup when no size is set), or null.</param>
-    internal void AddResult(string id, Chromaticity chromaticity2Degree, bool pass, Func<string, double?> field, double? stepsFromTarget, string? groupValue = null)
+    /// <param name="inconclusive">Guarded acceptance found the unit too close to a limit to call (counted apart from pass and fail).</param>
+    internal void AddResult(string id, Chromaticity chromaticity2Degree, bool pass, Func<string, double?> field, double? stepsFromTarget, string? groupValue = null, bool inconclusive = false)
     {
         ArgumentNullException.ThrowIfNull(field);
         string? subgroup = Subgroup(groupValue);
         long ordinal = _records;
         _records++;
         _results++;
-        if (pass) _passed++; else _failed++;
+        if (inconclusive) _inconclusive++;
+        else if (pass) _passed++;
+        else _failed++;
         foreach (var (name, s) in _stats) s.Add(field(name) ?? double.NaN);
         foreach (var (name, s) in _limited)
         {
@@ -158,6 +166,8 @@ public sealed class BatchSummaryBuilder
             _stats, mu, mv, MaxPairwise(), fromMean, Percentile(fromMeanValues, 0.95), fromTarget, Percentile(targetValues, 0.95), Outliers(), caps)
         {
             GroupedBy = _options.GroupBy,
+            Inconclusive = _inconclusive,
+            Rule = _rule,
             Groups = groups ?? [],
             SubgroupRule = _options.SubgroupRule,
         };
