@@ -43,7 +43,8 @@ public static class Program
                 var type = r.BenchmarkCase.Descriptor.Type;
                 int per = type == typeof(ColorimetryBenchmarks) ? ColorimetryBenchmarks.BatchSize
                     : type == typeof(RenditionBenchmarks) ? RenditionBenchmarks.BatchSize
-                    : type == typeof(BatchBenchmarks) ? BatchBenchmarks.Rows : 1; // compare: one pair per operation
+                    : type == typeof(BatchBenchmarks) ? BatchBenchmarks.Rows
+                    : type == typeof(UncertaintyBenchmarks) ? UncertaintyBenchmarks.Draws : 1; // compare: one pair per operation
                 double rate = per / (ns * 1e-9);
                 lines.Add(string.Create(CultureInfo.InvariantCulture,
                     $"| {r.BenchmarkCase.Descriptor.WorkloadMethodDisplayInfo} | {ns / 1000:0.0} µs | {per} | {rate:N0} |"));

@@ -141,8 +141,8 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         }
 
         // A CSV file has no place for the target the verdicts used: it goes to a sidecar beside it.
-        if (!json && !OutputTarget.IsStdout(outPath) && !OutputTarget.IsDevice(Path.GetFullPath(outPath!)) && spec!.Centre is not null
-            && OutputTarget.WriteText(JsonTarget.SidecarPath(outPath!), stdout, w => JsonTarget.WriteSidecar(w, spec, Path.GetFileName(outPath!))) is { } sidecarFailure)
+        if (!json && !OutputTarget.IsStdout(outPath) && !OutputTarget.IsDevice(Path.GetFullPath(outPath!)) && (spec!.Centre is not null || rule != Lumen.Uncertainty.DecisionRule.Simple)
+            && OutputTarget.WriteText(JsonTarget.SidecarPath(outPath!), stdout, w => JsonTarget.WriteSidecar(w, spec, Path.GetFileName(outPath!), rule)) is { } sidecarFailure)
             return CommonOptions.OutputFailed(stderr, sidecarFailure);
 
         var summaryTarget = summaryPath ?? (OutputTarget.IsStdout(outPath) ? null : "-");

@@ -15,6 +15,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
     public Option<string?> Size { get; } = new("--size") { Description = "Width×height in pixels, e.g. 1200x900." };
     public Option<string> Space { get; } = new("--space") { Description = "Diagram for locus: xy (CIE 1931) or uv (CIE 1976 u'v').", DefaultValueFactory = _ => "xy" };
     public Option<string?> Spec { get; } = new("--spec") { Description = "Tolerance spec: draws its quadrangle/ellipse/circle and marks points pass/fail." };
+    private readonly UncertaintyOptions _uncertainty = new();
     public Option<string?> Name { get; } = new("--name") { Description = "Which spectrum to draw (swatch, spectrum, vector); default the first." };
     public Option<bool> Absolute { get; } = new("--absolute") { Description = "Spectrum plot in the file's absolute unit instead of normalised." };
     public Option<bool> Compare { get; } = new("--compare") { Description = "Show all sources against a reference: locus with a marker, label and correction arrow per source; spectrum overlay at equal luminance; swatch rows per source after white balance." };
@@ -26,6 +27,7 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         Space.AcceptOnlyFromAmong("xy", "uv");
         var cmd = new Command("plot", "Draw a swatch, chromaticity diagram (locus), spectrum or TM-30 vector graphic as PNG or SVG.") { Kind };
         _inputs.AddTo(cmd);
+        _uncertainty.AddTo(cmd);
         cmd.Add(Out); cmd.Add(Size); cmd.Add(Space); cmd.Add(Spec); cmd.Add(Name); cmd.Add(Absolute); cmd.Add(Compare); cmd.Add(Reference);
         cmd.SetAction(Execute);
         return cmd;
@@ -50,10 +52,15 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         if (!CommonOptions.TryLoadSpec(parse.GetValue(Spec), stderr, out var spec)) return ExitCodes.UsageError;
         if (!_inputs.TryResolve(parse, stderr, out var inputs, parse.GetValue(Out))) return ExitCodes.UsageError;
         if (OutputTarget.ConflictWithInputs(outPath, inputs.Files) is { } conflict) return Fail(conflict + ".");
+        if (!_uncertainty.TryLoad(parse, spec, stderr, out var model, out var run, out var rule)) return ExitCodes.UsageError;
         var items = new List<RecordOutcome>();
+        // With an uncertainty model, the locus draws each point's 95 % ellipse: colorimetry is all the draws need.
+        var uncertaintyOptions = new AssessmentOptions(Metrics: Lumen.Analysis.MetricGroups.Colorimetry);
         foreach (var r in inputs.Records(stdin))
         {
             var o = RecordOutcome.Of(r, AssessmentOptions.Default, spec);
+            if (model is not null && kind == "locus" && o.Assessment is not null && r is SpectrumRecord sr)
+                o = o with { Uncertainty = Lumen.Uncertainty.MonteCarlo.Run(sr.Spectrum, Assessor.Assess(sr.Spectrum, uncertaintyOptions), uncertaintyOptions, model, run, spec), Rule = rule };
             CommonOptions.ReportError(stderr, o.Error);
             items.Add(o);
         }
@@ -71,7 +78,8 @@ internal sealed class PlotCommand(TextReader stdin, TextWriter stdout, TextWrite
         {
             case "locus":
                 var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree,
-                    i.Verdict is null ? PointStatus.None : i.Verdict.Pass ? PointStatus.Pass : PointStatus.Fail)).ToList();
+                    i.Verdict is null ? PointStatus.None : i.Status switch { "pass" => PointStatus.Pass, "fail" => PointStatus.Fail, _ => PointStatus.Inconclusive })
+                    { UPrimeVPrimeCovariance = i.Uncertainty?.UPrimeVPrimeCovariance }).ToList();
                 var space = parse.GetValue(Space) == "uv" ? DiagramSpace.UPrimeVPrime : DiagramSpace.Xy;
                 draw = (c, z) => ChromaticityDiagram.Draw(c, z, new DiagramOptions(space, pts, spec, space == DiagramSpace.Xy ? "CIE 1931 chromaticity" : "CIE 1976 u′v′ chromaticity"));
                 break;

@@ -42,7 +42,8 @@ public static class JsonTarget
     /// <param name="output">Where to write.</param>
     /// <param name="spec">The prepared specification the verdicts used.</param>
     /// <param name="resultsFileName">The CSV file's name.</param>
-    public static void WriteSidecar(TextWriter output, PreparedSpec spec, string resultsFileName)
+    /// <param name="rule">The decision rule the verdicts were read under.</param>
+    public static void WriteSidecar(TextWriter output, PreparedSpec spec, string resultsFileName, Lumen.Uncertainty.DecisionRule rule = Lumen.Uncertainty.DecisionRule.Simple)
     {
         ArgumentNullException.ThrowIfNull(spec);
         JsonOutput.Write(output, w =>
@@ -51,6 +52,7 @@ public static class JsonTarget
             w.WriteString("results", resultsFileName);
             w.WriteString("spec", spec.Spec.Name);
             w.WriteString("description", spec.Spec.Description);
+            w.WriteString("rule", Lumen.Uncertainty.Decisions.Describe(rule));
             Write(w, spec);
             w.WriteEndObject();
         });

@@ -26,6 +26,7 @@ public static class ChromaticityDiagram
         var plot = new SKRect(90 * s, 60 * s, size.Width - 40 * s, size.Height - 80 * s);
         double x0, x1, y0, y1;
         var pts = options.Points.Where(p => p.Chromaticity.IsDefined).Select(p => Coord(p.Chromaticity, options.Space)).ToList();
+        foreach (var p in options.Points) pts.AddRange(p.UncertaintyEllipse(16).Select(c => Coord(c, options.Space)));
         if (options.Spec?.Spec.Target is { } t) pts.Add(Coord(t.Centre, options.Space));
         if (pts.Count == 0)
         {
@@ -255,6 +256,20 @@ public static class ChromaticityDiagram
         using var neutral = Style.Fill(Style.Neutral);
         using var outline = Style.Stroke(SKColors.White, 1f * s);
         using var fail = Style.Stroke(Style.Fail, 2.2f * s);
+        using var ellipsePen = Style.Stroke(Style.Neutral, 1.2f * s);
+        foreach (var p in points)
+        {
+            var outline95 = p.UncertaintyEllipse();
+            if (outline95.Count == 0) continue;
+            using var path = new SKPath();
+            for (int i = 0; i < outline95.Count; i++)
+            {
+                var e = Coord(outline95[i], space);
+                if (i == 0) path.MoveTo(m.Px(e.X), m.Py(e.Y)); else path.LineTo(m.Px(e.X), m.Py(e.Y));
+            }
+            path.Close();
+            canvas.DrawPath(path, ellipsePen);
+        }
         foreach (var p in points)
         {
             if (!p.Chromaticity.IsDefined) continue;
@@ -264,6 +279,11 @@ public static class ChromaticityDiagram
             {
                 canvas.DrawLine(x - r, y - r, x + r, y + r, fail);
                 canvas.DrawLine(x - r, y + r, x + r, y - r, fail);
+            }
+            else if (p.Status == PointStatus.Inconclusive)
+            {
+                using var ring = Style.Stroke(Style.Accent, 2.2f * s);
+                canvas.DrawCircle(x, y, r, ring);
             }
             else
             {
@@ -370,6 +390,10 @@ public static class ChromaticityDiagram
         int pass = o.DistinctSources ? 0 : o.Points.Count(p => p.Status == PointStatus.Pass), fail = o.DistinctSources ? 0 : o.Points.Count(p => p.Status == PointStatus.Fail), none = o.DistinctSources ? 0 : o.Points.Count(p => p.Status == PointStatus.None);
         if (pass > 0) items.Add(($"pass ({pass})", (x, y) => { using var p = Style.Fill(Style.Pass); canvas.DrawCircle(x + 11 * s, y, 5 * s, p); }));
         if (fail > 0) items.Add(($"fail ({fail})", (x, y) => { using var p = Style.Stroke(Style.Fail, 2.2f * s); canvas.DrawLine(x + 6 * s, y - 5 * s, x + 16 * s, y + 5 * s, p); canvas.DrawLine(x + 6 * s, y + 5 * s, x + 16 * s, y - 5 * s, p); }));
+        int inconclusive = o.DistinctSources ? 0 : o.Points.Count(p => p.Status == PointStatus.Inconclusive);
+        if (inconclusive > 0) items.Add(($"inconclusive ({inconclusive})", (x, y) => { using var p = Style.Stroke(Style.Accent, 2.2f * s); canvas.DrawCircle(x + 11 * s, y, 5 * s, p); }));
+        if (o.Points.Any(p => p.UncertaintyEllipse(8).Count > 0))
+            items.Add(("95 % uncertainty ellipse", (x, y) => { using var p = Style.Stroke(Style.Neutral, 1.2f * s); canvas.DrawOval(new SKRect(x + 2 * s, y - 5 * s, x + 20 * s, y + 5 * s), p); }));
         if (none > 0) items.Add(($"measured ({none})", (x, y) => { using var p = Style.Fill(Style.Neutral); canvas.DrawCircle(x + 11 * s, y, 5 * s, p); }));
         float w = 270 * s, h = (items.Count * 20 + 12) * s;
         var box = new SKRect(m.Plot.Right - w - 10 * s, m.Plot.Top + 10 * s, m.Plot.Right - 10 * s, m.Plot.Top + 10 * s + h);

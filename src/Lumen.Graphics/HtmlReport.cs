@@ -93,6 +93,7 @@ public static class HtmlReport
             if (context.Inputs.Count > 0) Row("Inputs", context.Inputs.Count == 1 ? context.Inputs[0].Path : $"{context.Inputs.Count} files (listed with their SHA-256 at the end)");
         }
         Row("Specification", spec?.Spec.Description);
+        if (spec is not null) Row("Decision rule", Lumen.Uncertainty.Decisions.Describe(Lumen.Uncertainty.DecisionRule.Simple));
         if (spec?.TargetDescription is { } target) Row("Target", target);
         sb.Append("</table>");
         if (verdict is not null) sb.Append("<p class=\"verdict\" id=\"verdict\">").Append(verdict).Append("</p>");

@@ -11,4 +11,7 @@ public enum PointStatus
 
     /// <summary>Failed the specification.</summary>
     Fail,
+
+    /// <summary>Too close to a limit to call with the measurement uncertainty (guarded acceptance).</summary>
+    Inconclusive,
 }
