@@ -12,7 +12,7 @@ internal sealed class BlackbodyCommand(TextWriter stdout, TextWriter stderr)
     public Option<double> Emissivity { get; } = new Option<double>("--emissivity") { Description = "Emissivity ε in (0, 1] (grey body).", DefaultValueFactory = _ => 1.0 }.Strict();
     public Option<double?> Area { get; } = new Option<double?>("--area") { Description = "Radiating area in m² (gives the net radiated power)." }.Strict();
     public Option<double> Ambient { get; } = new Option<double>("--ambient") { Description = "Temperature of the surroundings in K for the net power.", DefaultValueFactory = _ => 293.15 }.Strict();
-    public Option<string?> Export { get; } = new("--export") { Description = "Write the spectral radiance to this file (CSV that 'lumen analyze' reads)." };
+    public Option<string?> Export { get; } = new("--export") { Description = "Write the spectral radiance to this file: CSV that 'lumen analyze' reads, or IES TM-27 XML when the name ends in .spdx." };
     public Option<double> From { get; } = new Option<double>("--from") { Description = "First wavelength of the export, nm.", DefaultValueFactory = _ => 360 }.Strict();
     public Option<double> To { get; } = new Option<double>("--to") { Description = "Last wavelength of the export, nm.", DefaultValueFactory = _ => 830 }.Strict();
     public Option<double> Step { get; } = new Option<double>("--step") { Description = "Wavelength step of the export, nm.", DefaultValueFactory = _ => 1 }.Strict();
@@ -49,7 +49,13 @@ internal sealed class BlackbodyCommand(TextWriter stdout, TextWriter stderr)
         var report = BlackbodyReport.Compute(t, eps, area, ambient);
         string? exportPath = parse.GetValue(Export);
         if (exportPath is not null
-            && OutputTarget.WriteText(exportPath, stdout, w => ThermalWriters.WriteRadianceExport(w, Radiator.RadianceSpectrum(t, eps, from, to, step), t, eps, approx)) is { } exportFailure)
+            && OutputTarget.WriteText(exportPath, stdout, w =>
+            {
+                var spectrum = Radiator.RadianceSpectrum(t, eps, from, to, step);
+                if (exportPath.EndsWith(".spdx", StringComparison.OrdinalIgnoreCase))
+                    Tm27.Write(w, spectrum, [new("Description", spectrum.Name), new("DocumentCreator", "Lumen " + LumenApp.Version), new("Comments", FormattableString.Invariant($"Planck's law, T = {t} K, emissivity {eps}; computed, not measured"))]);
+                else ThermalWriters.WriteRadianceExport(w, spectrum, t, eps, approx);
+            }) is { } exportFailure)
             return CommonOptions.OutputFailed(stderr, exportFailure);
         if (OutputTarget.WriteText(parse.GetValue(Out), stdout, w => ThermalWriters.WriteBlackbody(report, exportPath, parse.GetValue(Format) == "json", w)) is { } failure)
             return CommonOptions.OutputFailed(stderr, failure);

@@ -6,14 +6,14 @@ using Lumen.Spectra;
 namespace Lumen.Cli;
 
 /// <summary>
-/// The input options every verb that reads spectra shares: files, folders (searched recursively for .csv, .tsv and .txt)
+/// The input options every verb that reads spectra shares: files, folders (searched recursively for .csv, .tsv, .txt and .spdx)
 /// and <c>-</c> for standard input; the unit when a file declares none; the layout.
 /// </summary>
 internal sealed class InputOptions
 {
     public Argument<string[]> Inputs { get; } = new("inputs")
     {
-        Description = "Spectrum files or folders (searched recursively for .csv, .tsv, .txt); '-' reads standard input.",
+        Description = "Spectrum files or folders (searched recursively for .csv, .tsv, .txt, .spdx); '-' reads standard input.",
         Arity = ArgumentArity.OneOrMore,
     };
 

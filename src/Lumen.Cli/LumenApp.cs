@@ -39,6 +39,7 @@ public static class LumenApp
         root.Subcommands.Add(new ReportCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new CompareCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new MixCommand(stdin, stdout, stderr).Build());
+        root.Subcommands.Add(new ExportCommand(stdin, stdout, stderr).Build());
         var parse = root.Parse(args);
         if (parse.Errors.Count > 0)
         {

@@ -134,6 +134,12 @@ public static class AnalysisWriter
         w.WriteString("name", rec.Name);
         w.WriteString("source", rec.Source);
         w.WriteNumber("column", rec.Column);
+        if (item.Record.Metadata.Count > 0)
+        {
+            w.WriteStartObject("metadata");
+            foreach (var (key, value) in item.Record.Metadata) w.WriteString(key, value);
+            w.WriteEndObject();
+        }
         if (item.Assessment is not { } a)
         {
             w.Error(item.Error!);

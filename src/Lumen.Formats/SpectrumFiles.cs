@@ -57,10 +57,16 @@ public static class SpectrumFiles
                 {
                     if (records is null)
                     {
-                        var kind = layout ?? (lines.PeekFirstDataLine() is { } first ? RowSpectrumReader.DetectLayout(first) : TableLayout.Columns);
-                        records = (kind == TableLayout.Rows
-                            ? RowSpectrumReader.Read(lines, source, stem, unit)
-                            : DelimitedSpectrumReader.Read(lines, source, stem, unit)).GetEnumerator();
+                        var first = lines.PeekFirstDataLine();
+                        if (first is not null && Tm27.Looks(first))
+                            records = Tm27.Read(lines.AsCharacterStream(), source, stem).GetEnumerator(); // detected by content
+                        else
+                        {
+                            var kind = layout ?? (first is not null ? RowSpectrumReader.DetectLayout(first) : TableLayout.Columns);
+                            records = (kind == TableLayout.Rows
+                                ? RowSpectrumReader.Read(lines, source, stem, unit)
+                                : DelimitedSpectrumReader.Read(lines, source, stem, unit)).GetEnumerator();
+                        }
                     }
                     if (records.MoveNext()) next = records.Current;
                 }
@@ -95,7 +101,7 @@ public static class SpectrumFiles
     }
 
     /// <summary>
-    /// Expands inputs: a file (or <c>-</c>) stays; a folder becomes its .csv, .tsv and .txt files, recursively, in ordinal
+    /// Expands inputs: a file (or <c>-</c>) stays; a folder becomes its .csv, .tsv, .txt and .spdx files, recursively, in ordinal
     /// order. Folders reached through symbolic links are followed once (by their real path), so a link loop cannot hang
     /// the scan or read a file twice; a folder that cannot be listed, or that holds no spectrum file, becomes an entry with
     /// its problem (read as an error record, so nothing is silently lost). Files in <paramref name="exclude"/> (the run's
@@ -116,7 +122,7 @@ public static class SpectrumFiles
             {
                 int before = files.Count;
                 Scan(input, files, seenFolders, skip);
-                if (files.Count == before) files.Add(new InputFile(input, "folder holds no .csv, .tsv or .txt file"));
+                if (files.Count == before) files.Add(new InputFile(input, "folder holds no .csv, .tsv, .txt or .spdx file"));
             }
             else files.Add(new InputFile(input));
         }
@@ -124,7 +130,8 @@ public static class SpectrumFiles
     }
 
     private static bool IsSpectrumFile(string f) =>
-        f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".tsv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".txt", StringComparison.OrdinalIgnoreCase);
+        f.EndsWith(".csv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".tsv", StringComparison.OrdinalIgnoreCase) || f.EndsWith(".txt", StringComparison.OrdinalIgnoreCase)
+        || f.EndsWith(".spdx", StringComparison.OrdinalIgnoreCase);
 
     private static void Scan(string folder, List<InputFile> files, HashSet<string> seenFolders, HashSet<string> skip)
     {

@@ -255,7 +255,7 @@ public sealed class HostileInputTests : IDisposable
         Directory.CreateDirectory(empty);
         var (code, _, err) = CliTests.Run("", "analyze", empty);
         Assert.Equal(ExitCodes.InputErrors, code);
-        Assert.Contains("holds no .csv, .tsv or .txt file", err, StringComparison.Ordinal);
+        Assert.Contains("holds no .csv, .tsv, .txt or .spdx file", err, StringComparison.Ordinal);
     }
 
     [Fact]

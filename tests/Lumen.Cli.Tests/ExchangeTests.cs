@@ -1,0 +1,70 @@
+using System.Text.Json;
+using Lumen.Cli;
+
+namespace Lumen.Cli.Tests;
+
+/// <summary>Open exchange: IES TM-27 in and out through the commands (issue 15).</summary>
+public sealed class ExchangeTests : IDisposable
+{
+    private readonly string _dir = Path.Combine(Path.GetTempPath(), $"lumen-x-{Guid.NewGuid():N}");
+
+    public ExchangeTests() => Directory.CreateDirectory(_dir);
+
+    public void Dispose() => Directory.Delete(_dir, true);
+
+    private static JsonElement First(string json) => JsonDocument.Parse(json).RootElement[0];
+
+    [Fact]
+    public void A_tm27_file_and_a_csv_of_the_same_spectrum_give_identical_results()
+    {
+        // Export the example downlights to TM-27, then analyze both: every result field is equal.
+        var csv = Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv");
+        var folder = Path.Combine(_dir, "tm27");
+        Assert.Equal(ExitCodes.Success, CliTests.Run("", "export", csv, "-o", folder).Code);
+        var files = Directory.GetFiles(folder, "*.spdx").Order(StringComparer.Ordinal).ToArray();
+        Assert.Equal(6, files.Length);
+        var fromCsv = JsonDocument.Parse(CliTests.Run("", "analyze", csv, "--format", "json").Out).RootElement;
+        var fromXml = JsonDocument.Parse(CliTests.Run("", "analyze", folder, "--format", "json").Out).RootElement;
+        Assert.Equal(6, fromXml.GetArrayLength());
+        for (int i = 0; i < 6; i++)
+        {
+            var a = fromCsv[i];
+            var b = fromXml.EnumerateArray().Single(x => x.GetProperty("name").GetString() == a.GetProperty("name").GetString());
+            foreach (var group in new[] { "tristimulus", "chromaticity", "cct", "cri", "fidelity", "photometry" })
+                Assert.Equal(Strip(a.GetProperty(group)), Strip(b.GetProperty(group)));
+        }
+    }
+
+    private static string Strip(JsonElement e) => JsonSerializer.Serialize(e);
+
+    [Fact]
+    public void Export_keeps_tm27_header_fields_and_blackbody_writes_tm27()
+    {
+        var spdx = Path.Combine(_dir, "bb.spdx");
+        Assert.Equal(ExitCodes.Success, CliTests.Run("", "blackbody", "2856", "--export", spdx).Code);
+        var again = Path.Combine(_dir, "again.spdx");
+        Assert.Equal(ExitCodes.Success, CliTests.Run("", "export", spdx, "-o", again).Code);
+        var text = File.ReadAllText(again);
+        Assert.Contains("Planck's law, T = 2856 K", text, StringComparison.Ordinal); // the comment survived the round trip
+        Assert.Contains("<SpectralQuantity>radiance</SpectralQuantity>", text, StringComparison.Ordinal);
+        var a = First(CliTests.Run("", "analyze", spdx, "--format", "json").Out);
+        Assert.InRange(a.GetProperty("cct").GetProperty("kelvin").GetDouble(), 2855, 2857); // CIE illuminant A's blackbody
+        Assert.Equal("radiance", a.GetProperty("metadata").GetProperty("spectralQuantity").GetString());
+        // Several spectra need a folder.
+        var csv = Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv");
+        Assert.Equal(ExitCodes.UsageError, CliTests.Run("", "export", csv, "-o", Path.Combine(_dir, "one.spdx")).Code);
+    }
+
+    [Fact]
+    public void Tm27_header_fields_reach_batch_results()
+    {
+        var folder = Path.Combine(_dir, "tm27");
+        var csv = Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv");
+        CliTests.Run("", "export", csv, "-o", folder);
+        var results = Path.Combine(_dir, "r.csv");
+        CliTests.Run("", "batch", folder, "--nominal-cct", "3000", "--steps", "7", "-o", results);
+        var header = File.ReadLines(results).First().Split(',');
+        Assert.Contains("documentCreator", header);
+        Assert.Contains("spectralQuantity", header);
+    }
+}
