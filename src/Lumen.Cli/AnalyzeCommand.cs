@@ -20,7 +20,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         DefaultValueFactory = _ => "2",
     };
 
-    public Option<string> FormatOption { get; } = CommonOptions.Format("text", "json", "csv");
+    public Option<string> FormatOption { get; } = CommonOptions.Format("text", "json", "jsonl", "csv");
 
     public Option<string?> OutputOption { get; } = OutputTarget.Option("Write results to this file instead of standard output.", false, "--output");
 

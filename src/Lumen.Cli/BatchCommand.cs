@@ -19,6 +19,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     public Option<string?> Out { get; } = OutputTarget.Option("Results file, one row per input record (.json for JSON, else CSV); default: CSV on standard output.");
     public Option<string?> Summary { get; } = new("--summary") { Description = "Summary file (.json for JSON, else text); default: standard output after a results file, or standard error." };
     public Option<int> Threads { get; } = new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
+    public Option<string?> FormatOption { get; } = new("--format") { Description = "Results format: csv, json (an array) or jsonl (JSON Lines, one object per line). Default: from the --out name (.json, .jsonl or .ndjson), else csv." };
     public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Metadata column (e.g. lot, station) or preamble key: a summary per value, and the subgroups of Cpk unless --subgroup-size is given." };
     public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Consecutive results per subgroup for Cpk (within-subgroup SD), at least 2." };
 
@@ -52,7 +53,8 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         _inputs.AddTo(cmd);
         _spec.AddTo(cmd);
         _uncertainty.AddTo(cmd);
-        cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads); cmd.Add(GroupBy); cmd.Add(SubgroupSize);
+        cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads); cmd.Add(GroupBy); cmd.Add(SubgroupSize); cmd.Add(FormatOption);
+        FormatOption.AcceptOnlyFromAmong("csv", "json", "jsonl");
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -70,7 +72,10 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         foreach (var p in new[] { outPath, summaryPath })
             if (OutputTarget.ConflictWithInputs(p, inputs.Files) is { } conflict) { stderr.WriteLine($"lumen: {conflict}."); return ExitCodes.UsageError; }
         int threads = Math.Max(1, parse.GetValue(Threads));
-        bool json = outPath?.EndsWith(".json", StringComparison.OrdinalIgnoreCase) == true;
+        string format = parse.GetValue(FormatOption) ?? (outPath is null ? "csv"
+            : outPath.EndsWith(".json", StringComparison.OrdinalIgnoreCase) ? "json"
+            : outPath.EndsWith(".jsonl", StringComparison.OrdinalIgnoreCase) || outPath.EndsWith(".ndjson", StringComparison.OrdinalIgnoreCase) ? "jsonl" : "csv");
+        bool json = format != "csv", lines = format == "jsonl";
         if (parse.GetValue(SubgroupSize) is < 2) { stderr.WriteLine("lumen: --subgroup-size must be at least 2 (a subgroup of one has no spread)."); return ExitCodes.UsageError; }
         var grouping = new BatchSummaryOptions(parse.GetValue(GroupBy), parse.GetValue(SubgroupSize));
         var metadataKeys = inputs.Files.SelectMany(f => SpectrumFiles.MetadataKeys(f, inputs.Layout)).Distinct(StringComparer.Ordinal).ToArray();
@@ -82,7 +87,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
 
         BatchSummary? summary = null;
         string? failure;
-        if (outPath is null && stdoutIsTerminal)
+        if (outPath is null && stdoutIsTerminal && parse.GetValue(FormatOption) is null)
         {
             // At a terminal with no -o: a readable verdict table (failures first), not a wide CSV; -o - or a pipe gives CSV.
             var shown = new List<RecordOutcome>();
@@ -119,7 +124,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                 {
                     using (var rows = new StreamWriter(scratch, false, new UTF8Encoding(false), 1 << 16))
                     {
-                        var writer = new BatchResultWriter(rows, json, spec!, metadataKeys, withUncertainty: model is not null);
+                        var writer = new BatchResultWriter(rows, json, spec!, metadataKeys, withUncertainty: model is not null, lines: lines);
                         summary = Run(inputs, spec!, writer, builder, threads);
                         writer.Complete();
                     }
@@ -133,7 +138,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
         if (interrupt.IsCancellationRequested)
         {
-            string where = OutputTarget.IsStdout(outPath) ? "standard output" : $"'{OutputTarget.PartialPath(outPath!)}' ({(json ? "a complete JSON array" : "complete CSV rows")})";
+            string where = OutputTarget.IsStdout(outPath) ? "standard output" : $"'{OutputTarget.PartialPath(outPath!)}' ({(lines ? "complete JSON lines" : json ? "a complete JSON array" : "complete CSV rows")})";
             stderr.WriteLine($"lumen: interrupted: {summary!.RecordsRead:N0} records were written to {where}; "
                 + (OutputTarget.IsStdout(outPath) ? "" : $"'{outPath}' was not changed. ")
                 + "No summary was written. Run the batch again to get the complete results.");

@@ -55,7 +55,7 @@ internal static class CommonOptions
     }
 
     /// <summary>The output format named by a <c>--format</c> value.</summary>
-    public static OutputFormat ToOutputFormat(string? text) => text switch { "json" => OutputFormat.Json, "csv" => OutputFormat.Csv, _ => OutputFormat.Text };
+    public static OutputFormat ToOutputFormat(string? text) => text switch { "json" => OutputFormat.Json, "jsonl" => OutputFormat.JsonLines, "csv" => OutputFormat.Csv, _ => OutputFormat.Text };
 
     /// <summary>Reports an unreadable record on standard error as <c>lumen: file:line:column: message</c>.</summary>
     public static void ReportError(TextWriter stderr, ReadDiagnostic? error)

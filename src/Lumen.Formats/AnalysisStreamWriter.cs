@@ -10,7 +10,7 @@ namespace Lumen.Formats;
 public sealed class AnalysisStreamWriter
 {
     private readonly TextWriter _out;
-    private readonly bool _json;
+    private readonly bool _json, _lines;
     private readonly ColumnSchema<RecordOutcome> _csv;
     private readonly Lumen.Conformance.PreparedSpec? _spec;
     private bool _first = true;
@@ -28,10 +28,12 @@ public sealed class AnalysisStreamWriter
         ArgumentNullException.ThrowIfNull(output);
         if (format == OutputFormat.Text) throw new ArgumentException("The text table is not streamed.", nameof(format));
         _out = output;
-        _json = format == OutputFormat.Json;
+        _json = format is OutputFormat.Json or OutputFormat.JsonLines;
+        _lines = format == OutputFormat.JsonLines;
         _csv = withVerdict ? AnalysisColumns.CsvWithVerdict : AnalysisColumns.Csv;
         if (withUncertainty) _csv = AnalysisColumns.WithUncertainty(_csv);
-        if (_json) _out.Write('[');
+        if (_lines) { }
+        else if (_json) _out.Write('[');
         else _csv.WriteCsvHeader(_out);
     }
 
@@ -41,6 +43,13 @@ public sealed class AnalysisStreamWriter
     {
         ArgumentNullException.ThrowIfNull(item);
         if (!_json) { _csv.WriteCsvRow(_out, item); return; }
+        if (_lines)
+        {
+            using var line = new StringWriter();
+            JsonOutput.Write(line, w => AnalysisWriter.WriteRecord(w, item, _spec), indented: false);
+            _out.WriteLine(line.ToString().TrimEnd('\n', '\r'));
+            return;
+        }
         _out.Write(_first ? "\n" : ",\n");
         _first = false;
         using var sw = new StringWriter();
@@ -51,7 +60,7 @@ public sealed class AnalysisStreamWriter
     /// <summary>Finishes the output (the closing bracket of the JSON array).</summary>
     public void Complete()
     {
-        if (_json) _out.WriteLine(_first ? "]" : "\n]");
+        if (_json && !_lines) _out.WriteLine(_first ? "]" : "\n]");
         _out.Flush();
     }
 }

@@ -7,7 +7,7 @@ namespace Lumen.Formats;
 public sealed class BatchResultWriter
 {
     private readonly TextWriter _out;
-    private readonly bool _json;
+    private readonly bool _json, _lines;
     private readonly IReadOnlyList<string> _metadataKeys;
     private readonly bool _withUncertainty;
     private ColumnSchema<RecordOutcome>? _csv;
@@ -30,16 +30,18 @@ public sealed class BatchResultWriter
     /// <param name="metadataKeys">Metadata keys known before the first record (from the input files' headers); the first
     /// record's keys are added to them, and the CSV header is written with the first record.</param>
     /// <param name="withUncertainty">CSV: add <c>_u</c>, <c>_low</c>, <c>_high</c> beside each result field.</param>
-    public BatchResultWriter(TextWriter output, bool json, PreparedSpec prepared, IReadOnlyList<string>? metadataKeys = null, bool withUncertainty = false)
+    /// <param name="lines">With <paramref name="json"/>: JSON Lines, one object per line without the enclosing array.</param>
+    public BatchResultWriter(TextWriter output, bool json, PreparedSpec prepared, IReadOnlyList<string>? metadataKeys = null, bool withUncertainty = false, bool lines = false)
     {
         ArgumentNullException.ThrowIfNull(output);
         ArgumentNullException.ThrowIfNull(prepared);
         _prepared = prepared;
         _out = output;
         _json = json;
+        _lines = json && lines;
         _metadataKeys = metadataKeys ?? [];
         _withUncertainty = withUncertainty;
-        if (json) _out.WriteLine("[");
+        if (json && !_lines) _out.WriteLine("[");
     }
 
     /// <summary>The CSV schema, made (and its header written) with the first record, whose metadata keys it includes.</summary>
@@ -59,6 +61,13 @@ public sealed class BatchResultWriter
     {
         ArgumentNullException.ThrowIfNull(item);
         if (!_json) { Csv(item).WriteCsvRow(_out, item); return; }
+        if (_lines)
+        {
+            using var line = new StringWriter();
+            JsonOutput.Write(line, w => WriteObject(w, item, _prepared), indented: false);
+            _out.WriteLine(line.ToString().TrimEnd('\n', '\r'));
+            return;
+        }
         if (!_first) _out.WriteLine(",");
         _first = false;
         using var sw = new StringWriter();
@@ -70,7 +79,7 @@ public sealed class BatchResultWriter
     public void Complete()
     {
         if (!_json) Csv(null);
-        else
+        else if (!_lines)
         {
             _out.WriteLine();
             _out.WriteLine("]");

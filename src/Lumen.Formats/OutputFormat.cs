@@ -11,4 +11,7 @@ public enum OutputFormat
 
     /// <summary>CSV, one row per record, flat columns documented in the README.</summary>
     Csv,
+
+    /// <summary>JSON Lines: one JSON object per record per line (the objects of <see cref="Json"/>), streamed.</summary>
+    JsonLines,
 }

@@ -68,3 +68,43 @@ public sealed class ExchangeTests : IDisposable
         Assert.Contains("spectralQuantity", header);
     }
 }
+
+/// <summary>JSON Lines for the next tool in the chain (issue 15).</summary>
+public sealed class JsonLinesTests
+{
+    private static readonly string Lot = Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv");
+    private static readonly string Spec = Path.Combine(CliTests.RepoRoot, "examples", "batch", "spec-dl30.json");
+
+    [Fact]
+    public void Analyze_jsonl_lines_each_parse_and_equal_the_json_array()
+    {
+        var downlights = Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv");
+        var lines = CliTests.Run("", "analyze", downlights, "--format", "jsonl").Out.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        var array = JsonDocument.Parse(CliTests.Run("", "analyze", downlights, "--format", "json").Out).RootElement;
+        Assert.Equal(array.GetArrayLength(), lines.Length);
+        for (int i = 0; i < lines.Length; i++)
+            Assert.Equal(JsonSerializer.Serialize(array[i]), JsonSerializer.Serialize(JsonDocument.Parse(lines[i]).RootElement));
+    }
+
+    [Fact]
+    public void Batch_jsonl_has_one_object_per_record_equal_to_the_json_rows()
+    {
+        var dir = Path.Combine(Path.GetTempPath(), $"lumen-jl-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(dir);
+        try
+        {
+            string jl = Path.Combine(dir, "r.jsonl"), js = Path.Combine(dir, "r.json");
+            CliTests.Run("", "batch", Lot, "--spec", Spec, "-o", jl);
+            CliTests.Run("", "batch", Lot, "--spec", Spec, "-o", js);
+            var lines = File.ReadAllLines(jl);
+            var array = JsonDocument.Parse(File.ReadAllText(js)).RootElement;
+            Assert.Equal(240, lines.Length); // every record, errors included
+            for (int i = 0; i < lines.Length; i++)
+                Assert.Equal(JsonSerializer.Serialize(array[i]), JsonSerializer.Serialize(JsonDocument.Parse(lines[i]).RootElement));
+            // --format wins over the name, and works on standard output.
+            var (_, stdout, _) = CliTests.Run("", "batch", Lot, "--spec", Spec, "--format", "jsonl");
+            Assert.Equal(240, stdout.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length);
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+}
