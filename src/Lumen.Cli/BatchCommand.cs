@@ -19,7 +19,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     public Option<string?> Out { get; } = OutputTarget.Option("Results file, one row per input record (.json for JSON, else CSV); default: CSV on standard output.");
     public Option<string?> Summary { get; } = new("--summary") { Description = "Summary file (.json for JSON, else text); default: standard output after a results file, or standard error." };
     public Option<int> Threads { get; } = new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
-    public Option<string?> FormatOption { get; } = new("--format") { Description = "Results format: csv, json (an array) or jsonl (JSON Lines, one object per line). Default: from the --out name (.json, .jsonl or .ndjson), else csv." };
+    public Option<string?> FormatOption { get; } = new("--format") { Description = "Results format: csv, json (an array), jsonl (JSON Lines, one object per line) or parquet (Apache Parquet, typed columns; needs -o FILE). Default: from the --out name (.json, .jsonl, .ndjson, .parquet), else csv." };
     public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Metadata column (e.g. lot, station) or preamble key: a summary per value, and the subgroups of Cpk unless --subgroup-size is given." };
     public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Consecutive results per subgroup for Cpk (within-subgroup SD), at least 2." };
 
@@ -54,7 +54,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         _spec.AddTo(cmd);
         _uncertainty.AddTo(cmd);
         cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads); cmd.Add(GroupBy); cmd.Add(SubgroupSize); cmd.Add(FormatOption);
-        FormatOption.AcceptOnlyFromAmong("csv", "json", "jsonl");
+        FormatOption.AcceptOnlyFromAmong("csv", "json", "jsonl", "parquet");
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -74,8 +74,14 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         int threads = Math.Max(1, parse.GetValue(Threads));
         string format = parse.GetValue(FormatOption) ?? (outPath is null ? "csv"
             : outPath.EndsWith(".json", StringComparison.OrdinalIgnoreCase) ? "json"
-            : outPath.EndsWith(".jsonl", StringComparison.OrdinalIgnoreCase) || outPath.EndsWith(".ndjson", StringComparison.OrdinalIgnoreCase) ? "jsonl" : "csv");
-        bool json = format != "csv", lines = format == "jsonl";
+            : outPath.EndsWith(".jsonl", StringComparison.OrdinalIgnoreCase) || outPath.EndsWith(".ndjson", StringComparison.OrdinalIgnoreCase) ? "jsonl"
+            : outPath.EndsWith(".parquet", StringComparison.OrdinalIgnoreCase) ? "parquet" : "csv");
+        bool parquet = format == "parquet", json = format is "json" or "jsonl", lines = format == "jsonl";
+        if (parquet && (OutputTarget.IsStdout(outPath) || OutputTarget.IsDevice(Path.GetFullPath(outPath!))))
+        {
+            stderr.WriteLine("lumen: Parquet is a binary file format: give -o NAME.parquet (not standard output or a device).");
+            return ExitCodes.UsageError;
+        }
         if (parse.GetValue(SubgroupSize) is < 2) { stderr.WriteLine("lumen: --subgroup-size must be at least 2 (a subgroup of one has no spread)."); return ExitCodes.UsageError; }
         var grouping = new BatchSummaryOptions(parse.GetValue(GroupBy), parse.GetValue(SubgroupSize));
         var metadataKeys = inputs.Files.SelectMany(f => SpectrumFiles.MetadataKeys(f, inputs.Layout)).Distinct(StringComparer.Ordinal).ToArray();
@@ -114,31 +120,44 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         }
         try
         {
-            failure = OutputTarget.WriteText(outPath, stdout, w =>
+            // Rows stream to a scratch file; once the batch is complete, the copy adds each row's robust z and
+            // outlier flag, which need the whole batch (and, for Parquet, gives the columns their types).
+            void Produce(Action<TextReader, BatchSummaryBuilder, IReadOnlyList<bool>> finish)
             {
-                // Rows stream to a scratch file; once the batch is complete, the copy adds each row's robust z and
-                // outlier flag, which need the whole batch.
                 var builder = new BatchSummaryBuilder(spec!, grouping);
                 string scratch = Path.Combine(Path.GetTempPath(), $"lumen-rows-{Guid.NewGuid():N}.tmp");
                 try
                 {
+                    IReadOnlyList<bool> numeric;
                     using (var rows = new StreamWriter(scratch, false, new UTF8Encoding(false), 1 << 16))
                     {
                         var writer = new BatchResultWriter(rows, json, spec!, metadataKeys, withUncertainty: model is not null, lines: lines);
                         summary = Run(inputs, spec!, writer, builder, threads);
                         writer.Complete();
+                        numeric = writer.NumericColumns;
                     }
                     using var back = new StreamReader(scratch, Encoding.UTF8, false, 1 << 16);
-                    OutlierColumns.Copy(back, w, json, builder.RobustZ, BatchSummaryBuilder.OutlierZ);
+                    finish(back, builder, numeric);
                 }
                 finally { File.Delete(scratch); }
-            }, partial: () => interrupt.IsCancellationRequested);
+            }
+            failure = parquet
+                ? OutputTarget.WriteFile(outPath!, stream => Produce((back, builder, numeric) => ParquetResults.Write(back, numeric, stream, builder.RobustZ, BatchSummaryBuilder.OutlierZ,
+                    new Dictionary<string, string>(StringComparer.Ordinal)
+                    {
+                        ["lumen.version"] = LumenApp.Version,
+                        ["lumen.spec"] = spec!.Spec.Description,
+                        ["lumen.rule"] = Lumen.Uncertainty.Decisions.Describe(rule),
+                        ["lumen.target"] = spec.TargetDescription ?? "",
+                    })), partial: () => interrupt.IsCancellationRequested)
+                : OutputTarget.WriteText(outPath, stdout, w => Produce((back, builder, _) => OutlierColumns.Copy(back, w, json, builder.RobustZ, BatchSummaryBuilder.OutlierZ)),
+                    partial: () => interrupt.IsCancellationRequested);
         }
         catch (BatchWriteException ex) { failure = ex.Message; }
         if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
         if (interrupt.IsCancellationRequested)
         {
-            string where = OutputTarget.IsStdout(outPath) ? "standard output" : $"'{OutputTarget.PartialPath(outPath!)}' ({(lines ? "complete JSON lines" : json ? "a complete JSON array" : "complete CSV rows")})";
+            string where = OutputTarget.IsStdout(outPath) ? "standard output" : $"'{OutputTarget.PartialPath(outPath!)}' ({(parquet ? "a complete Parquet file" : lines ? "complete JSON lines" : json ? "a complete JSON array" : "complete CSV rows")})";
             stderr.WriteLine($"lumen: interrupted: {summary!.RecordsRead:N0} records were written to {where}; "
                 + (OutputTarget.IsStdout(outPath) ? "" : $"'{outPath}' was not changed. ")
                 + "No summary was written. Run the batch again to get the complete results.");
@@ -146,7 +165,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         }
 
         // A CSV file has no place for the target the verdicts used: it goes to a sidecar beside it.
-        if (!json && !OutputTarget.IsStdout(outPath) && !OutputTarget.IsDevice(Path.GetFullPath(outPath!)) && (spec!.Centre is not null || rule != Lumen.Uncertainty.DecisionRule.Simple)
+        if (!json && !parquet && !OutputTarget.IsStdout(outPath) && !OutputTarget.IsDevice(Path.GetFullPath(outPath!)) && (spec!.Centre is not null || rule != Lumen.Uncertainty.DecisionRule.Simple)
             && OutputTarget.WriteText(JsonTarget.SidecarPath(outPath!), stdout, w => JsonTarget.WriteSidecar(w, spec, Path.GetFileName(outPath!), rule)) is { } sidecarFailure)
             return CommonOptions.OutputFailed(stderr, sidecarFailure);
 

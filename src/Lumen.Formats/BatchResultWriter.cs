@@ -55,6 +55,10 @@ public sealed class BatchResultWriter
         return _csv;
     }
 
+    /// <summary>For CSV output, whether each column holds numbers (known once the header is written: after the first
+    /// record or <see cref="Complete"/>); empty for JSON.</summary>
+    public IReadOnlyList<bool> NumericColumns => _csv?.Columns.Select(c => c.IsNumeric).ToArray() ?? [];
+
     /// <summary>Writes one record.</summary>
     /// <param name="item">The outcome.</param>
     public void Write(RecordOutcome item)

@@ -11,4 +11,31 @@ public static class Csv
         ArgumentNullException.ThrowIfNull(text);
         return text.AsSpan().IndexOfAny(",\"\n\r") >= 0 ? "\"" + text.Replace("\"", "\"\"", StringComparison.Ordinal) + "\"" : text;
     }
+
+    /// <summary>Splits one CSV line written by <see cref="Quote"/> into its fields (RFC 4180 quotes; no line breaks inside
+    /// fields). An empty field is <c>""</c>.</summary>
+    /// <param name="line">The line.</param>
+    /// <returns>The fields.</returns>
+    public static string[] Split(string line)
+    {
+        ArgumentNullException.ThrowIfNull(line);
+        var fields = new List<string>();
+        var sb = new System.Text.StringBuilder();
+        bool quoted = false;
+        for (int i = 0; i < line.Length; i++)
+        {
+            char c = line[i];
+            if (quoted)
+            {
+                if (c == '"' && i + 1 < line.Length && line[i + 1] == '"') { sb.Append('"'); i++; }
+                else if (c == '"') quoted = false;
+                else sb.Append(c);
+            }
+            else if (c == '"') quoted = true;
+            else if (c == ',') { fields.Add(sb.ToString()); sb.Clear(); }
+            else sb.Append(c);
+        }
+        fields.Add(sb.ToString());
+        return fields.ToArray();
+    }
 }
