@@ -59,9 +59,15 @@ public static class DelimitedSpectrumReader
         ReadDiagnostic? fileError = null;
         int lineNo = 0, lastLine = 0;
         var preamble = new List<KeyValuePair<string, string>>();
-        string? line;
-        while ((line = reader.ReadLine()) is not null)
+        // Instrument exports: a preamble before the numeric block becomes comments (line numbers kept).
+        var all = new List<string>();
+        for (string? l; (l = reader.ReadLine()) is not null;) all.Add(l);
+        var normalised = InstrumentExport.Normalise(all);
+        double factor = 1;
+        bool unitFromCells = false;
+        foreach (var l in normalised.Lines)
         {
+            var line = l;
             lineNo++;
             if (lineNo == 1 && line.Length > 0 && line[0] == '\uFEFF') line = line[1..];
             var trimmed = line.Trim();
@@ -69,7 +75,9 @@ public static class DelimitedSpectrumReader
             if (trimmed[0] == '#')
             {
                 var directive = trimmed.TrimStart('#').Trim();
-                if (directive.StartsWith("unit", StringComparison.OrdinalIgnoreCase) && directive.Contains(':', StringComparison.Ordinal))
+                if (directive.StartsWith("wavelength unit", StringComparison.OrdinalIgnoreCase) && directive.Contains(':', StringComparison.Ordinal))
+                    factor = InstrumentExport.WavelengthFactor(directive[(directive.IndexOf(':', StringComparison.Ordinal) + 1)..]);
+                else if (directive.StartsWith("unit", StringComparison.OrdinalIgnoreCase) && directive.Contains(':', StringComparison.Ordinal))
                 {
                     var text = directive[(directive.IndexOf(':', StringComparison.Ordinal) + 1)..].Trim();
                     if (SpectralUnits.TryParse(text, out var u)) declaredUnit ??= u;
@@ -84,9 +92,10 @@ public static class DelimitedSpectrumReader
             if (wavelengths is null)
             {
                 // First non-comment row: header or data?
-                if (!TryParseNumber(cells[0], delimiter.Value, out _))
+                if (!InstrumentExport.TryParseWavelength(cells[0], delimiter.Value, 1, out _))
                 {
                     header = cells;
+                    if (factor == 1) factor = InstrumentExport.WavelengthFactor(cells[0]);
                     headerLine = lineNo;
                     columnCount = cells.Length;
                     if (columnCount < 2)
@@ -111,7 +120,7 @@ public static class DelimitedSpectrumReader
                 fileError = new ReadDiagnostic(source, lineNo, columnCount + 1, $"ragged row: expected {columnCount} cells, found {cells.Length}");
                 continue;
             }
-            if (!TryParseNumber(cells[0], delimiter.Value, out double w) || w <= 0)
+            if (!InstrumentExport.TryParseWavelength(cells[0], delimiter.Value, factor, out double w) || w <= 0)
             {
                 fileError = new ReadDiagnostic(source, lineNo, 1, $"'{Shorten(cells[0])}' is not a wavelength; expected a positive number of nm");
                 continue;
@@ -133,7 +142,17 @@ public static class DelimitedSpectrumReader
                     values![c].Add(0);
                     continue;
                 }
-                if (!TryParseNumber(cells[c], delimiter.Value, out double v))
+                if (InstrumentExport.TryParseValue(cells[c], delimiter.Value, out double v, out var cellUnit) && cellUnit is { } cu)
+                {
+                    // A value that names its unit: it must agree with the file's (and sets it when none was declared).
+                    if (declaredUnit is null || (unitFromCells && declaredUnit == cu)) { declaredUnit = cu; unitFromCells = true; }
+                    else if (declaredUnit != cu)
+                    {
+                        columnErrors[c] = new ReadDiagnostic(source, lineNo, c + 1, $"the cell's unit {SpectralUnits.Symbol(cu)} differs from the file's unit {SpectralUnits.Symbol(declaredUnit.Value)}");
+                        v = 0;
+                    }
+                }
+                else if (!InstrumentExport.TryParseValue(cells[c], delimiter.Value, out v, out _))
                 {
                     columnErrors[c] = new ReadDiagnostic(source, lineNo, c + 1,
                         cells[c].Length == 0 ? "empty cell; expected a number" : $"'{Shorten(cells[c])}' is not a number; expected a finite decimal number");
@@ -164,7 +183,7 @@ public static class DelimitedSpectrumReader
             }
             try
             {
-                var s = new Spectrum(wavelengths!.ToArray(), values![c].ToArray(), finalUnit, name, new SpectrumOrigin(source, c + 1) { Layout = "column layout (wavelengths down the first column, one spectrum per column)" });
+                var s = new Spectrum(wavelengths!.ToArray(), values![c].ToArray(), finalUnit, name, new SpectrumOrigin(source, c + 1) { Layout = "column layout (wavelengths down the first column, one spectrum per column)" + (InstrumentExport.Describe(normalised, factor) is { } how ? "; " + how : "") });
                 records.Add(new SpectrumRecord(source, c + 1, name, s) { Metadata = metadata });
             }
             catch (InvalidSpectrumException ex)
@@ -218,7 +237,7 @@ public static class DelimitedSpectrumReader
         return ' ';
     }
 
-    private static string[] Split(string row, char delimiter)
+    internal static string[] Split(string row, char delimiter)
     {
         var parts = delimiter == ' '
             ? row.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries)

@@ -108,3 +108,72 @@ public sealed class JsonLinesTests
         finally { Directory.Delete(dir, true); }
     }
 }
+
+/// <summary>Instrument exports as they come: preamble, unit cells, µm/Å columns, transposed (issue 15).</summary>
+public sealed class InstrumentExportTests : IDisposable
+{
+    private readonly string _dir = Path.Combine(Path.GetTempPath(), $"lumen-ie-{Guid.NewGuid():N}");
+
+    public InstrumentExportTests() => Directory.CreateDirectory(_dir);
+
+    public void Dispose() => Directory.Delete(_dir, true);
+
+    /// <summary>A smooth invented spectrum at 5 nm, 380–780 nm (test data of our own making).</summary>
+    private static (double Nm, double V)[] Data() =>
+        Enumerable.Range(0, 81).Select(i => (380.0 + 5 * i, Math.Round(0.2 + Math.Exp(-Math.Pow((380 + 5 * i - 560) / 90.0, 2)) + 0.6 * Math.Exp(-Math.Pow((380 + 5 * i - 450) / 12.0, 2)), 6))).ToArray();
+
+    private static string F(double x) => x.ToString("R", System.Globalization.CultureInfo.InvariantCulture);
+
+    private JsonElement Analyze(string name, string text)
+    {
+        var path = Path.Combine(_dir, name);
+        File.WriteAllText(path, text);
+        var (code, json, err) = CliTests.Run("", "analyze", path, "--format", "json");
+        Assert.True(code == ExitCodes.Success, err);
+        return JsonDocument.Parse(json).RootElement[0];
+    }
+
+    private static void AssertSameResults(JsonElement a, JsonElement b)
+    {
+        foreach (var group in new[] { "tristimulus", "chromaticity", "cct", "cri", "fidelity" })
+            Assert.Equal(JsonSerializer.Serialize(a.GetProperty(group)), JsonSerializer.Serialize(b.GetProperty(group)));
+    }
+
+    [Fact]
+    public void Preamble_unit_cells_micrometres_and_transposed_files_read_like_the_clean_csv()
+    {
+        var d = Data();
+        var clean = Analyze("clean.csv", "# unit: W/m2/nm\nnm,lamp\n" + string.Join('\n', d.Select(p => $"{F(p.Nm)},{F(p.V)}")) + "\n");
+
+        // A meter's export: key/value preamble in three styles, a line that is neither, a header, unit-bearing cells.
+        var meter = Analyze("meter.csv",
+            "Instrument: SR-Example (invented)\nIntegration time,100 ms\nOperator\tQA bench 2\n=== spectral data ===\nWavelength,lamp\n"
+            + string.Join('\n', d.Select(p => $"{F(p.Nm)}nm,{F(p.V)} W/m²/nm")) + "\n");
+        AssertSameResults(clean, meter);
+        Assert.Equal("SR-Example (invented)", meter.GetProperty("metadata").GetProperty("Instrument").GetString());
+        Assert.Equal("100 ms", meter.GetProperty("metadata").GetProperty("Integration time").GetString());
+        Assert.Equal("QA bench 2", meter.GetProperty("metadata").GetProperty("Operator").GetString());
+        var layout = meter.GetProperty("provenance").GetProperty("inputLayout").GetString();
+        Assert.Contains("3 preamble lines kept as metadata", layout, StringComparison.Ordinal);
+        Assert.Contains("1 preamble line skipped (line 4)", layout, StringComparison.Ordinal);
+
+        // Wavelengths in µm, declared by the header.
+        var um = Analyze("um.csv", "# unit: W/m2/nm\nWavelength (µm),lamp\n" + string.Join('\n', d.Select(p => $"{F(p.Nm / 1000)},{F(p.V)}")) + "\n");
+        AssertSameResults(clean, um);
+        // Transposed: wavelengths across the first row, one spectrum per row.
+        var tr = Analyze("transposed.csv", "# unit: W/m2/nm\nnm," + string.Join(',', d.Select(p => F(p.Nm))) + "\nlamp," + string.Join(',', d.Select(p => F(p.V))) + "\n");
+        AssertSameResults(clean, tr);
+    }
+
+    [Fact]
+    public void A_cell_unit_that_contradicts_the_file_is_an_error_at_that_cell()
+    {
+        var d = Data();
+        var path = Path.Combine(_dir, "mixed.csv");
+        File.WriteAllText(path, "# unit: W/m2/nm\nnm,lamp\n" + string.Join('\n', d.Select((p, i) => $"{F(p.Nm)},{F(p.V)}{(i == 3 ? " W/sr/nm" : "")}")) + "\n");
+        var (code, _, err) = CliTests.Run("", "analyze", path);
+        Assert.Equal(ExitCodes.InputErrors, code);
+        Assert.Contains("mixed.csv:6:2:", err, StringComparison.Ordinal);
+        Assert.Contains("differs from the file's unit", err, StringComparison.Ordinal);
+    }
+}
