@@ -20,12 +20,14 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     public Option<string?> Summary { get; } = new("--summary") { Description = "Summary file (.json for JSON, else text); default: standard output after a results file, or standard error." };
     public Option<int> Threads { get; } = new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
     public Option<string?> FormatOption { get; } = new("--format") { Description = "Results format: csv, json (an array), jsonl (JSON Lines, one object per line) or parquet (Apache Parquet, typed columns; needs -o FILE). Default: from the --out name (.json, .jsonl, .ndjson, .parquet), else csv." };
+    public Option<string?> Metrics { get; } = new("--metrics") { Description = "Extra result groups for the results and summary: cri, fidelity, photometry, nonvisual, spectral or all. Default: only what the spec's limits need (chromaticity always), the fastest." };
     public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Metadata column (e.g. lot, station) or preamble key: a summary per value, and the subgroups of Cpk unless --subgroup-size is given." };
     public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Consecutive results per subgroup for Cpk (within-subgroup SD), at least 2." };
 
     private Lumen.Uncertainty.UncertaintyModel? _model;
     private Lumen.Uncertainty.MonteCarloOptions _run = new();
     private Lumen.Uncertainty.DecisionRule _rule;
+    private MetricGroups _extraMetrics = MetricGroups.Colorimetry;
 
     /// <summary>Records computed per parallel chunk (input order is kept).</summary>
     internal const int ChunkSize = 512;
@@ -53,7 +55,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         _inputs.AddTo(cmd);
         _spec.AddTo(cmd);
         _uncertainty.AddTo(cmd);
-        cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads); cmd.Add(GroupBy); cmd.Add(SubgroupSize); cmd.Add(FormatOption);
+        cmd.Add(Out); cmd.Add(Summary); cmd.Add(Threads); cmd.Add(GroupBy); cmd.Add(SubgroupSize); cmd.Add(FormatOption); cmd.Add(Metrics);
         FormatOption.AcceptOnlyFromAmong("csv", "json", "jsonl", "parquet");
         cmd.SetAction(Execute);
         return cmd;
@@ -82,6 +84,12 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             stderr.WriteLine("lumen: Parquet is a binary file format: give -o NAME.parquet (not standard output or a device).");
             return ExitCodes.UsageError;
         }
+        if (!AnalyzeCommand.TryParseMetrics(parse.GetValue(Metrics) ?? "colorimetry", out var extra, out var badMetric))
+        {
+            stderr.WriteLine($"lumen: --metrics: '{badMetric}' is not a metric group; expected colorimetry, cri, fidelity, photometry, nonvisual, spectral or all.");
+            return ExitCodes.UsageError;
+        }
+        _extraMetrics = extra;
         if (parse.GetValue(SubgroupSize) is < 2) { stderr.WriteLine("lumen: --subgroup-size must be at least 2 (a subgroup of one has no spread)."); return ExitCodes.UsageError; }
         var grouping = new BatchSummaryOptions(parse.GetValue(GroupBy), parse.GetValue(SubgroupSize));
         var metadataKeys = inputs.Files.SelectMany(f => SpectrumFiles.MetadataKeys(f, inputs.Layout)).Distinct(StringComparer.Ordinal).ToArray();
@@ -187,7 +195,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     /// <summary>Reads, assesses and judges every record, writing rows in input order; memory stays flat.</summary>
     internal BatchSummary Run(InputSelection inputs, PreparedSpec spec, BatchResultWriter writer, BatchSummaryBuilder builder, int threads, Action<RecordOutcome>? observe = null)
     {
-        var options = new AssessmentOptions(Metrics: spec.RequiredMetrics);
+        var options = new AssessmentOptions(Metrics: spec.RequiredMetrics | _extraMetrics);
         var clock = Stopwatch.StartNew();
         long done = 0;
         var progress = new ReadProgress();

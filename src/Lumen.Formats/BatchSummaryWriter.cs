@@ -29,6 +29,9 @@ public static class BatchSummaryWriter
         output.WriteLine($"{"field",-14} {"mean",10} {"SD",10} {"min",10} {"max",10}");
         foreach (var (name, st) in s.Statistics)
             output.WriteLine(string.Create(Inv, $"{name,-14} {G(st.Mean),10} {G(st.StandardDeviation),10} {G(st.Min),10} {G(st.Max),10}"));
+        var missing = s.Statistics.Where(kv => kv.Value.Count == 0).Select(kv => kv.Key).ToList();
+        if (missing.Count > 0 && s.Results > 0)
+            output.WriteLine($"({string.Join(", ", missing)} not computed: the spec does not limit them; add --metrics all to include them.)");
         output.WriteLine();
         output.WriteLine(string.Create(Inv, $"Chromaticity: mean u' {s.MeanUPrime:0.00000}, v' {s.MeanVPrime:0.00000}; largest Δu'v' between two units {s.MaxPairwiseDeltaUPrimeVPrime:0.00000}"));
         output.WriteLine(string.Create(Inv, $"Steps from batch mean: mean {G(s.StepsFromMean.Mean)}, 95th percentile {G(s.StepsFromMeanP95)}, max {G(s.StepsFromMean.Max)}"));

@@ -130,3 +130,23 @@ public sealed class LotStatisticsTests : IDisposable
         Assert.NotNull(err);
     }
 }
+
+/// <summary>The batch computes what the spec needs, and more only when asked (issue 16).</summary>
+public class BatchMetricsTests
+{
+    private static readonly string Lot = Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv");
+
+    [Fact]
+    public void A_chromaticity_only_spec_computes_only_colorimetry_unless_asked()
+    {
+        var (_, csv, err) = CliTests.Run("", "batch", Lot, "--nominal-cct", "3000", "--steps", "3", "-o", "-");
+        var header = csv.Split('\n')[0].Split(',');
+        int ra = Array.IndexOf(header, "cri.ra");
+        var first = csv.Split('\n')[1].Split(',');
+        Assert.Equal("", first[ra]); // not computed
+        Assert.Contains("not computed: the spec does not limit them", err, StringComparison.Ordinal);
+        var (_, all, _) = CliTests.Run("", "batch", Lot, "--nominal-cct", "3000", "--steps", "3", "--metrics", "all", "-o", "-");
+        Assert.NotEqual("", all.Split('\n')[1].Split(',')[ra]);
+        Assert.Equal(ExitCodes.UsageError, CliTests.Run("", "batch", Lot, "--nominal-cct", "3000", "--steps", "3", "--metrics", "colour").Code);
+    }
+}

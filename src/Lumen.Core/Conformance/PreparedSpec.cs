@@ -78,14 +78,15 @@ public sealed class PreparedSpec
     }
 
     /// <summary>
-    /// The result groups an assessment needs for this specification: colorimetry always, CIE 13.3 and CIE 224 for the batch
-    /// summary's statistics, and every group a limit names.
+    /// The result groups the verdicts of this specification need: colorimetry always, and every group a limit names —
+    /// nothing more, so a spec that limits only chromaticity costs only colorimetry. (A batch adds groups for its
+    /// summary only when asked: <c>--metrics</c>.)
     /// </summary>
     public MetricGroups RequiredMetrics
     {
         get
         {
-            var m = MetricGroups.Colorimetry | MetricGroups.Cri | MetricGroups.Fidelity;
+            var m = MetricGroups.Colorimetry;
             foreach (var l in Spec.Limits) m |= ResultFields.GroupOf(l.Field);
             return m;
         }
