@@ -14,6 +14,8 @@ public class CultureTests
         var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
         psi.ArgumentList.Add(dll);
         foreach (var a in args) psi.ArgumentList.Add(a);
+        // Reports stamp the date; fix it (the reproducible-output convention) so runs a minute apart compare equal.
+        psi.Environment["SOURCE_DATE_EPOCH"] = "1796083200";
         if (culture is not null)
         {
             psi.Environment["DOTNET_SYSTEM_GLOBALIZATION_INVARIANT"] = "0";
