@@ -54,41 +54,7 @@ public sealed class LineReader : TextReader
     /// <summary>The rest of the input as a character stream (lines joined by <c>\n</c>), for readers that need one (XML);
     /// lines keep their length limit.</summary>
     /// <returns>A reader over the remaining lines.</returns>
-    public TextReader AsCharacterStream() => new JoinedLines(this);
-
-    private sealed class JoinedLines(LineReader lines) : TextReader
-    {
-        private string? _current = "";
-        private int _at;
-        private bool _started;
-
-        private bool Fill()
-        {
-            while (_current is not null && _at >= _current.Length)
-            {
-                var next = lines.ReadLine();
-                if (next is null) { _current = null; return false; }
-                _current = _started ? "\n" + next : next;
-                _started = true;
-                _at = 0;
-            }
-            return _current is not null;
-        }
-
-        public override int Peek() => Fill() ? _current![_at] : -1;
-
-        public override int Read() => Fill() ? _current![_at++] : -1;
-
-        public override int Read(char[] buffer, int index, int count)
-        {
-            ArgumentNullException.ThrowIfNull(buffer);
-            if (!Fill()) return 0;
-            int n = Math.Min(count, _current!.Length - _at);
-            _current.CopyTo(_at, buffer, index, n);
-            _at += n;
-            return n;
-        }
-    }
+    public TextReader AsCharacterStream() => new LineText(ReadLine);
 
     /// <inheritdoc/>
     public override string? ReadLine()

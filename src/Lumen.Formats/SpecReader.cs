@@ -21,23 +21,7 @@ public static class SpecReader
     /// <returns>The spec, or null when it has errors.</returns>
     public static ToleranceSpec? ReadFile(string path, out IReadOnlyList<ReadDiagnostic> errors)
     {
-        ArgumentNullException.ThrowIfNull(path);
-        if (Directory.Exists(path)) { errors = [new ReadDiagnostic(path, 0, 0, "is a folder; expected a specification file (JSON)")]; return null; }
-        if (!File.Exists(path)) { errors = [new ReadDiagnostic(path, 0, 0, "spec file not found")]; return null; }
-        byte[] bytes;
-        try
-        {
-            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
-            if (stream.CanSeek && stream.Length > MaxBytes) { errors = [new ReadDiagnostic(path, 0, 0, $"the specification is larger than {MaxBytes / 1024} KiB; is this the right file?")]; return null; }
-            using var ms = new MemoryStream();
-            stream.CopyTo(ms);
-            bytes = ms.ToArray();
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            errors = [new ReadDiagnostic(path, 0, 0, $"cannot read the specification: {ex.Message}")];
-            return null;
-        }
+        if (!StrictJson.TryReadFile(path, MaxBytes, "specification", out var bytes, out var error)) { errors = [error!]; return null; }
         return Read(bytes, path, out errors);
     }
 

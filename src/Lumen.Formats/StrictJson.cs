@@ -10,6 +10,37 @@ namespace Lumen.Formats;
 /// </summary>
 internal static class StrictJson
 {
+    /// <summary>Reads a hand-written file whole: refuses a folder, a missing file and one larger than
+    /// <paramref name="maxBytes"/> (a wrong file, most likely), with a message naming <paramref name="what"/>.</summary>
+    /// <param name="path">The path.</param>
+    /// <param name="maxBytes">Largest size accepted.</param>
+    /// <param name="what">What the file should be, for messages ("specification", "uncertainty model").</param>
+    /// <param name="bytes">The content.</param>
+    /// <param name="error">Why it could not be read, or null.</param>
+    /// <returns>True when read.</returns>
+    public static bool TryReadFile(string path, int maxBytes, string what, out byte[] bytes, out ReadDiagnostic? error)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        bytes = [];
+        error = null;
+        if (Directory.Exists(path)) { error = new ReadDiagnostic(path, 0, 0, $"is a folder; expected a {what} file (JSON)"); return false; }
+        if (!File.Exists(path)) { error = new ReadDiagnostic(path, 0, 0, $"{what} file not found"); return false; }
+        try
+        {
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+            if (stream.CanSeek && stream.Length > maxBytes) { error = new ReadDiagnostic(path, 0, 0, $"the {what} is larger than {maxBytes / 1024} KiB; is this the right file?"); return false; }
+            using var ms = new MemoryStream();
+            stream.CopyTo(ms);
+            bytes = ms.ToArray();
+            return true;
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            error = new ReadDiagnostic(path, 0, 0, $"cannot read the {what}: {ex.Message}");
+            return false;
+        }
+    }
+
     /// <summary>Parses a document, adding located diagnostics to <paramref name="list"/> on failure.</summary>
     /// <param name="utf8">The bytes (a UTF-8 byte-order mark is skipped).</param>
     /// <param name="source">Name for messages.</param>

@@ -67,7 +67,7 @@ public static class Tm27
         IXmlLineInfo? where = null;
         try
         {
-            using var xml = XmlReader.Create(new DoctypeGuard(reader), settings);
+            using var xml = XmlReader.Create(new LineText(reader.ReadLine, RefuseDoctype), settings);
             var info = (IXmlLineInfo)xml;
             where = info;
             bool root = false;
@@ -103,41 +103,11 @@ public static class Tm27
 
     private const string DoctypeMessage = "a DOCTYPE (DTD) is not allowed in spectral data: Lumen never expands entities or fetches anything a file points to";
 
-    /// <summary>Hands the XML reader the text line by line and stops at a DOCTYPE with its line and column (the XML
-    /// reader, which prohibits DTDs too, cannot say where it was).</summary>
-    private sealed class DoctypeGuard(TextReader inner) : TextReader
+    /// <summary>Stops at a DOCTYPE with its line and column (the XML reader, which prohibits DTDs too, cannot say where it was).</summary>
+    private static void RefuseDoctype(string line, int number)
     {
-        private string? _line = "";
-        private int _at, _number;
-
-        private bool Fill()
-        {
-            while (_line is not null && _at >= _line.Length)
-            {
-                var next = inner.ReadLine();
-                if (next is null) { _line = null; return false; }
-                _number++;
-                int d = next.IndexOf("<!DOCTYPE", StringComparison.Ordinal);
-                if (d >= 0) throw new XmlException(DoctypeMessage, null, _number, d + 1);
-                _line = next + "\n";
-                _at = 0;
-            }
-            return _line is not null;
-        }
-
-        public override int Peek() => Fill() ? _line![_at] : -1;
-
-        public override int Read() => Fill() ? _line![_at++] : -1;
-
-        public override int Read(char[] buffer, int index, int count)
-        {
-            ArgumentNullException.ThrowIfNull(buffer);
-            if (!Fill()) return 0;
-            int n = Math.Min(count, _line!.Length - _at);
-            _line.CopyTo(_at, buffer, index, n);
-            _at += n;
-            return n;
-        }
+        int d = line.IndexOf("<!DOCTYPE", StringComparison.Ordinal);
+        if (d >= 0) throw new XmlException(DoctypeMessage, null, number, d + 1);
     }
 
     private static ErrorRecord Error(string source, IXmlLineInfo info, string message) =>

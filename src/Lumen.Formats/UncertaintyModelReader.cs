@@ -24,18 +24,8 @@ public static class UncertaintyModelReader
     /// <returns>The model, or null.</returns>
     public static UncertaintyModel? ReadFile(string path, out IReadOnlyList<ReadDiagnostic> errors)
     {
-        ArgumentNullException.ThrowIfNull(path);
-        if (!File.Exists(path)) { errors = [new ReadDiagnostic(path, 0, 0, "uncertainty model file not found")]; return null; }
-        try
-        {
-            if (new FileInfo(path).Length > MaxBytes) { errors = [new ReadDiagnostic(path, 0, 0, $"larger than {MaxBytes / 1024} KiB; is this an uncertainty model?")]; return null; }
-            return Read(File.ReadAllBytes(path), path, out errors);
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            errors = [new ReadDiagnostic(path, 0, 0, $"cannot read the uncertainty model: {ex.Message}")];
-            return null;
-        }
+        if (!StrictJson.TryReadFile(path, MaxBytes, "uncertainty model", out var bytes, out var error)) { errors = [error!]; return null; }
+        return Read(bytes, path, out errors);
     }
 
     /// <summary>Reads a model from UTF-8 bytes.</summary>

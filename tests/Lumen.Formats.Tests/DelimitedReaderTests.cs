@@ -174,8 +174,8 @@ public class DelimitedReaderTests
         var lines = sw.ToString().TrimEnd().Split('\n');
         Assert.Equal(3, lines.Length);
         Assert.Equal(string.Join(',', AnalysisColumns.Csv.Names), lines[0].TrimEnd('\r'));
-        Assert.Equal(AnalysisColumns.Csv.Columns.Count, SplitCsv(lines[2].TrimEnd('\r')).Length);
-        Assert.Equal(AnalysisColumns.Csv.Columns.Count, SplitCsv(lines[1].TrimEnd('\r')).Length);
+        Assert.Equal(AnalysisColumns.Csv.Columns.Count, Csv.Split(lines[2].TrimEnd('\r')).Length);
+        Assert.Equal(AnalysisColumns.Csv.Columns.Count, Csv.Split(lines[1].TrimEnd('\r')).Length);
         Assert.Contains(",error,", lines[2], StringComparison.Ordinal);
     }
 
@@ -187,8 +187,8 @@ public class DelimitedReaderTests
         var sw = new StringWriter();
         AnalysisWriter.Write(items, OutputFormat.Csv, sw);
         var lines = sw.ToString().TrimEnd().Split('\n');
-        var header = SplitCsv(lines[0].TrimEnd('\r'));
-        var row = SplitCsv(lines[1].TrimEnd('\r'));
+        var header = Csv.Split(lines[0].TrimEnd('\r'));
+        var row = Csv.Split(lines[1].TrimEnd('\r'));
         Assert.Equal(header.Length, row.Length);
         foreach (var c in new[] { "cri.ra", "cri.r1", "cri.r9", "cri.r14", "fidelity.rf", "fidelity.rg", "fidelity.hueBin1.rf", "fidelity.hueBin16.rcs", "fidelity.hueBin8.rhs" })
         {
@@ -196,29 +196,6 @@ public class DelimitedReaderTests
             Assert.True(i >= 0, c);
             Assert.True(double.TryParse(row[i], System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out _), c);
         }
-    }
-
-    /// <summary>RFC 4180 field splitter for one line (test helper).</summary>
-    internal static string[] SplitCsv(string line)
-    {
-        var fields = new List<string>();
-        var sb = new System.Text.StringBuilder();
-        bool quoted = false;
-        for (int i = 0; i < line.Length; i++)
-        {
-            char c = line[i];
-            if (quoted)
-            {
-                if (c == '"' && i + 1 < line.Length && line[i + 1] == '"') { sb.Append('"'); i++; }
-                else if (c == '"') quoted = false;
-                else sb.Append(c);
-            }
-            else if (c == '"') quoted = true;
-            else if (c == ',') { fields.Add(sb.ToString()); sb.Clear(); }
-            else sb.Append(c);
-        }
-        fields.Add(sb.ToString());
-        return fields.ToArray();
     }
 
     [Fact]
