@@ -207,7 +207,10 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         // flight), so memory stays flat; writing overlaps computing of the next chunk.
         using var toCompute = new BlockingCollection<List<InputRecord>>(4);
         using var toWrite = new BlockingCollection<RecordOutcome[]>(2);
-        var reader = Task.Run(() =>
+        // Reader and writer block on their queues most of the time: they get threads of their own (LongRunning), so
+        // the pool's workers stay free for the parallel compute (on a 2-core machine the pool starts with 2 workers, and
+        // two blocked stages would leave the compute one thread until the pool grows).
+        var reader = Task.Factory.StartNew(() =>
         {
             try
             {
@@ -221,7 +224,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                 if (chunk.Count > 0) toCompute.Add(chunk);
             }
             finally { toCompute.CompleteAdding(); }
-        });
+        }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
         void WriteChunk(RecordOutcome[] items)
         {
             foreach (var item in items)
@@ -243,7 +246,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         }
 
         Exception? writeFailure = null;
-        var writerTask = Task.Run(() =>
+        var writerTask = Task.Factory.StartNew(() =>
         {
             foreach (var items in toWrite.GetConsumingEnumerable())
             {
@@ -251,7 +254,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                 try { WriteChunk(items); }
                 catch (Exception ex) when (ex is IOException or UnauthorizedAccessException) { writeFailure = ex; }
             }
-        });
+        }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
         try
         {
             foreach (var chunk in toCompute.GetConsumingEnumerable())
