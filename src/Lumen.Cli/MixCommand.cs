@@ -30,6 +30,7 @@ internal sealed class MixCommand(TextReader stdin, TextWriter stdout, TextWriter
     public Option<double?> MaxTotal { get; } = new Option<double?>("--max-total") { Description = "Cap on the sum of the levels (each level is at most 1)." }.Strict();
     public Option<string> Format { get; } = CommonOptions.Format("text", "json", "csv");
     public Option<string?> Out { get; } = OutputTarget.Option("Write the result to this file instead of standard output.");
+    public Option<string?> Export { get; } = new("--export") { Description = "Write the mixed spectrum (one target) to this file: IES TM-27 XML for .spdx, else CSV that 'lumen analyze' reads." };
     public Option<string?> Plot { get; } = new("--plot") { Description = "With --cct-range: also draw the levels and Rf/Rg against CCT to this .png or .svg." };
 
     public Command Build()
@@ -38,7 +39,7 @@ internal sealed class MixCommand(TextReader stdin, TextWriter stdout, TextWriter
         Minimize.AcceptOnlyFromAmong("melanopic-der");
         var cmd = new Command("mix", "Channel levels (0–1) of a multi-channel fixture that hit a target CCT/Duv, chromaticity or measured source, with the best Rf (or another objective); sweeps along the locus.");
         _inputs.AddTo(cmd);
-        foreach (var o in new Option[] { Cct, Duv, Xy, Uv, Match, Range, Tolerance, Maximize, Minimize, MaxTotal, Format, Out, Plot }) cmd.Add(o);
+        foreach (var o in new Option[] { Cct, Duv, Xy, Uv, Match, Range, Tolerance, Maximize, Minimize, MaxTotal, Format, Out, Plot, Export }) cmd.Add(o);
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -133,6 +134,24 @@ internal sealed class MixCommand(TextReader stdin, TextWriter stdout, TextWriter
             if (!svg && !plotPath.EndsWith(".png", StringComparison.OrdinalIgnoreCase)) return Fail("--plot must end in .png or .svg.");
             void Draw(SkiaSharp.SKCanvas cv, SkiaSharp.SKSize z) => MixSweepPlot.Draw(cv, z, results);
             var f = svg ? OutputTarget.WriteBytes(plotPath, new UTF8Encoding(false).GetBytes(Render.Svg(1200, 900, Draw))) : OutputTarget.WriteBytes(plotPath, Render.Png(1200, 900, Draw));
+            if (f is not null) return CommonOptions.OutputFailed(stderr, f);
+        }
+        if (parse.GetValue(Export) is { } exportPath)
+        {
+            if (range is not null) return Fail("--export writes one mix: give a single target, not --cct-range.");
+            var mixed = ChannelMixer.MixedSpectrum(channels, results[0].Levels, "mix " + string.Join(" ", results[0].Channels.Zip(results[0].Levels, (c, l) => FormattableString.Invariant($"{c}={l:0.###}"))));
+            var f = OutputTarget.WriteText(exportPath, stdout, w =>
+            {
+                if (exportPath.EndsWith(".spdx", StringComparison.OrdinalIgnoreCase))
+                    Tm27.Write(w, mixed, [new("Description", mixed.Name), new("DocumentCreator", "Lumen " + LumenApp.Version), new("Comments", "computed channel mix (channels assumed to add linearly), not a measurement")]);
+                else
+                {
+                    w.WriteLine($"# {mixed.Name}; computed, not measured");
+                    w.WriteLine($"# unit: {Lumen.Spectra.SpectralUnits.Symbol(mixed.Unit)}");
+                    w.WriteLine("nm,mix");
+                    for (int i = 0; i < mixed.Count; i++) w.WriteLine(FormattableString.Invariant($"{mixed.WavelengthsNm[i]:R},{mixed.Values[i]:R}"));
+                }
+            });
             if (f is not null) return CommonOptions.OutputFailed(stderr, f);
         }
         if (results.Any(r => !r.Reachable)) stderr.WriteLine($"lumen mix: {results.Count(r => !r.Reachable)} target(s) outside the channels' gamut; the nearest reachable mix is given.");

@@ -114,7 +114,7 @@ public static class MixWriter
         w.NumberOrNull("uPrime", r.Chromaticity.UPrime); w.NumberOrNull("vPrime", r.Chromaticity.VPrime);
         w.WriteEndObject();
         w.WriteStartObject("cct");
-        w.NumberOrNull("kelvin", r.Cct.CctKelvin); w.NumberOrNull("cct.duv", r.Cct.Duv);
+        w.NumberOrNull("kelvin", r.Cct.CctKelvin); w.NumberOrNull("duv", r.Cct.Duv);
         w.WriteEndObject();
         w.WriteStartObject("target");
         w.NumberOrNull("x", r.Target.SmallX); w.NumberOrNull("y", r.Target.SmallY);

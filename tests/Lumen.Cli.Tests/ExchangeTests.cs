@@ -56,6 +56,20 @@ public sealed class ExchangeTests : IDisposable
     }
 
     [Fact]
+    public void A_mix_exports_as_tm27_and_reads_back_at_its_target()
+    {
+        var spdx = Path.Combine(_dir, "mix.spdx");
+        var channels = Path.Combine(CliTests.RepoRoot, "examples", "mix", "quillfern-tw5-channels.csv");
+        var (code, json, _) = CliTests.Run("", "mix", channels, "--cct", "3200", "--format", "json", "--export", spdx);
+        Assert.Equal(ExitCodes.Success, code);
+        var mix = JsonDocument.Parse(json).RootElement;
+        var a = First(CliTests.Run("", "analyze", spdx, "--format", "json").Out);
+        Assert.InRange(a.GetProperty("cct").GetProperty("kelvin").GetDouble(), 3198, 3202); // the mix's target
+        Assert.Equal(mix.GetProperty("metrics").GetProperty("fidelity.rf").GetDouble(), a.GetProperty("fidelity").GetProperty("rf").GetDouble(), 6);
+        Assert.Contains("not a measurement", a.GetProperty("metadata").GetProperty("comments").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Tm27_header_fields_reach_batch_results()
     {
         var folder = Path.Combine(_dir, "tm27");

@@ -29,6 +29,24 @@ public static class ChannelMixer
     private const int MaxSteps = 60;
     private const double StopImprovement = 1e-4;
 
+    /// <summary>The spectrum of a mix: Σ levelᵢ·channelᵢ on the first channel's grid (the others interpolated onto it),
+    /// as <see cref="Solve"/> assumes (channels add linearly).</summary>
+    /// <param name="channels">The channel spectra (same unit).</param>
+    /// <param name="levels">One level per channel.</param>
+    /// <param name="name">The mix's name.</param>
+    /// <returns>The mixed spectrum.</returns>
+    public static Spectrum MixedSpectrum(IReadOnlyList<Spectrum> channels, IReadOnlyList<double> levels, string name = "mix")
+    {
+        ArgumentNullException.ThrowIfNull(channels);
+        ArgumentNullException.ThrowIfNull(levels);
+        if (channels.Count == 0 || channels.Count != levels.Count) throw new ArgumentException("One level per channel is needed.", nameof(levels));
+        var grid = channels[0].WavelengthsNm.ToArray();
+        var v = new double[grid.Length];
+        for (int c = 0; c < channels.Count; c++)
+            if (levels[c] != 0) for (int i = 0; i < v.Length; i++) v[i] += levels[c] * channels[c].ValueAt(grid[i]);
+        return new Spectrum(grid, v, channels[0].Unit, name, SpectrumOrigin.Generated("channel mix"));
+    }
+
     /// <summary>Finds the levels for a target.</summary>
     /// <param name="channels">Channel spectra (same unit; any grids — each is sampled on the first channel's grid).</param>
     /// <param name="target">The target chromaticity (CIE 1931 2°).</param>
