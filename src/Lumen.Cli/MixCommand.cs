@@ -144,13 +144,7 @@ internal sealed class MixCommand(TextReader stdin, TextWriter stdout, TextWriter
             {
                 if (exportPath.EndsWith(".spdx", StringComparison.OrdinalIgnoreCase))
                     Tm27.Write(w, mixed, [new("Description", mixed.Name), new("DocumentCreator", "Lumen " + LumenApp.Version), new("Comments", "computed channel mix (channels assumed to add linearly), not a measurement")]);
-                else
-                {
-                    w.WriteLine($"# {mixed.Name}; computed, not measured");
-                    w.WriteLine($"# unit: {Lumen.Spectra.SpectralUnits.Symbol(mixed.Unit)}");
-                    w.WriteLine("nm,mix");
-                    for (int i = 0; i < mixed.Count; i++) w.WriteLine(FormattableString.Invariant($"{mixed.WavelengthsNm[i]:R},{mixed.Values[i]:R}"));
-                }
+                else SpectrumCsv.Write(w, mixed, "computed channel mix (channels assumed to add linearly), not a measurement");
             });
             if (f is not null) return CommonOptions.OutputFailed(stderr, f);
         }

@@ -50,6 +50,11 @@ public sealed class ExchangeTests : IDisposable
         var a = First(CliTests.Run("", "analyze", spdx, "--format", "json").Out);
         Assert.InRange(a.GetProperty("cct").GetProperty("kelvin").GetDouble(), 2855, 2857); // CIE illuminant A's blackbody
         Assert.Equal("radiance", a.GetProperty("metadata").GetProperty("spectralQuantity").GetString());
+        // The same spectrum exported as CSV reads back to the same results.
+        var csvOut = Path.Combine(_dir, "bb.csv");
+        Assert.Equal(ExitCodes.Success, CliTests.Run("", "export", spdx, "--format", "csv", "-o", csvOut).Code);
+        var c = First(CliTests.Run("", "analyze", csvOut, "--format", "json").Out);
+        Assert.Equal(JsonSerializer.Serialize(a.GetProperty("cct")), JsonSerializer.Serialize(c.GetProperty("cct")));
         // Several spectra need a folder.
         var csv = Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv");
         Assert.Equal(ExitCodes.UsageError, CliTests.Run("", "export", csv, "-o", Path.Combine(_dir, "one.spdx")).Code);
