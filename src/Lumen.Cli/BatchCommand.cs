@@ -205,7 +205,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         // Three stages: a reader task fills chunks ahead, this thread computes each chunk in parallel, and a
         // writer task writes rows and feeds the summary in input order. Queues are bounded (a few chunks in
         // flight), so memory stays flat; writing overlaps computing of the next chunk.
-        using var toCompute = new BlockingCollection<List<InputRecord>>(4);
+        using var toCompute = new BlockingCollection<List<Func<InputRecord>>>(4);
         using var toWrite = new BlockingCollection<RecordOutcome[]>(2);
         // Reader and writer block on their queues most of the time: they get threads of their own (LongRunning), so
         // the pool's workers stay free for the parallel compute (on a 2-core machine the pool starts with 2 workers, and
@@ -214,12 +214,13 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         {
             try
             {
-                var chunk = new List<InputRecord>(ChunkSize);
-                foreach (var record in inputs.Records(stdin, progress))
+                // This thread reads lines; each row's numbers are parsed on the compute threads (issue 16).
+                var chunk = new List<Func<InputRecord>>(ChunkSize);
+                foreach (var record in inputs.Deferred(stdin, progress))
                 {
                     if (interrupt.IsCancellationRequested) break; // stop reading; what is in flight is still written
                     chunk.Add(record);
-                    if (chunk.Count == ChunkSize) { toCompute.Add(chunk); chunk = new List<InputRecord>(ChunkSize); }
+                    if (chunk.Count == ChunkSize) { toCompute.Add(chunk); chunk = new List<Func<InputRecord>>(ChunkSize); }
                 }
                 if (chunk.Count > 0) toCompute.Add(chunk);
             }
@@ -260,7 +261,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             foreach (var chunk in toCompute.GetConsumingEnumerable())
             {
                 var results = new RecordOutcome[chunk.Count];
-                Parallel.For(0, chunk.Count, po, i => results[i] = UncertaintyOptions.Propagate(RecordOutcome.Of(chunk[i], options, spec), options, spec, _model, _run, _rule));
+                Parallel.For(0, chunk.Count, po, i => results[i] = UncertaintyOptions.Propagate(RecordOutcome.Of(chunk[i](), options, spec), options, spec, _model, _run, _rule));
                 toWrite.Add(results);
             }
         }

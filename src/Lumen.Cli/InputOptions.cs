@@ -79,12 +79,16 @@ internal sealed record InputSelection(IReadOnlyList<InputFile> Inputs, SpectralU
     public IReadOnlyList<string> Files => Inputs.Select(f => f.Path).ToArray();
 
     /// <summary>Every record of every file, in order (the row layout streams).</summary>
-    public IEnumerable<InputRecord> Records(TextReader stdin, ReadProgress? progress = null)
+    public IEnumerable<InputRecord> Records(TextReader stdin, ReadProgress? progress = null) => Deferred(stdin, progress).Select(parse => parse());
+
+    /// <summary>Every record of every file, in order, each parsed when its item is called (row-layout rows can then be
+    /// parsed on the compute threads while this one reads).</summary>
+    public IEnumerable<Func<InputRecord>> Deferred(TextReader stdin, ReadProgress? progress = null)
     {
         foreach (var file in Inputs)
         {
-            if (file.Problem is { } problem) { yield return ErrorRecord.ForFile(file.Path, problem); continue; }
-            foreach (var r in SpectrumFiles.Read(file.Path, Unit, stdin, Layout, progress)) yield return r;
+            if (file.Problem is { } problem) { var e = ErrorRecord.ForFile(file.Path, problem); yield return () => e; continue; }
+            foreach (var r in SpectrumFiles.ReadDeferred(file.Path, Unit, stdin, Layout, progress)) yield return r;
         }
     }
 }

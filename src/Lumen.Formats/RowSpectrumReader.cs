@@ -109,31 +109,41 @@ public static class RowSpectrumReader
     /// <param name="stem">Stem for names of rows without an ID.</param>
     /// <param name="unit">Unit when the text declares none; null for relative.</param>
     /// <returns>Records in file order.</returns>
-    public static IEnumerable<InputRecord> Read(TextReader reader, string source, string stem, SpectralUnit? unit = null)
+    public static IEnumerable<InputRecord> Read(TextReader reader, string source, string stem, SpectralUnit? unit = null) =>
+        ReadDeferred(reader, source, stem, unit).Select(parse => parse());
+
+    /// <summary>
+    /// Streams the rows of a row-layout text unparsed: each item parses its row when called (thread-safe, no shared
+    /// state), so a batch can read lines on one thread and parse them on all cores. Calling every item in order gives
+    /// exactly <see cref="Read"/>'s records.
+    /// </summary>
+    /// <param name="reader">The text.</param>
+    /// <param name="source">Source label.</param>
+    /// <param name="stem">Stem for names of rows without an ID.</param>
+    /// <param name="unit">Unit when the text declares none; null for relative.</param>
+    /// <returns>One parser per record, in file order.</returns>
+    public static IEnumerable<Func<InputRecord>> ReadDeferred(TextReader reader, string source, string stem, SpectralUnit? unit = null)
     {
         ArgumentNullException.ThrowIfNull(reader);
         SpectralUnit? declared = unit;
-        double[]? wavelengths = null;
-        int idColumns = 0, expectedCells = 0;
-        char d = ',';
         string? line;
         int lineNo = 0, rows = 0;
         var preamble = new List<KeyValuePair<string, string>>();
-        string[] metadataNames = [];
-        IReadOnlyList<KeyValuePair<string, string>>? preambleOnly = null;
+        RowParser? parser = null;
         while ((line = reader.ReadLine()) is not null)
         {
             lineNo++;
             if (lineNo == 1 && line.Length > 0 && line[0] == '\uFEFF') line = line[1..];
             var t = line.Trim();
             if (t.Length == 0) continue;
-            if (t[0] == '#' && wavelengths is null) // comments and directives only before the header: after it, '#' starts an ID
+            if (t[0] == '#' && parser is null) // comments and directives only before the header: after it, '#' starts an ID
             {
                 if (DelimitedSpectrumReader.UnitDirective(t, out var u, out var bad))
                 {
                     if (bad is not null)
                     {
-                        yield return new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, lineNo, 1, bad));
+                        var e = new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, lineNo, 1, bad));
+                        yield return () => e;
                         yield break;
                     }
                     declared ??= u;
@@ -141,70 +151,104 @@ public static class RowSpectrumReader
                 else if (Preamble.TryParse(t, out var key, out var value)) preamble.Add(new(key, value));
                 continue;
             }
-            if (wavelengths is null)
+            if (parser is null)
             {
-                d = DelimitedSpectrumReader.DetectDelimiter(t);
+                char d = DelimitedSpectrumReader.DetectDelimiter(t);
                 var header = Cells(t, d);
-                idColumns = WavelengthStart(header, d);
+                int idColumns = WavelengthStart(header, d);
                 if (idColumns < 0)
                 {
-                    yield return new ErrorRecord(source, 0, Path.GetFileName(source),
+                    var e = new ErrorRecord(source, 0, Path.GetFileName(source),
                         new ReadDiagnostic(source, lineNo, 1, $"first row is not a wavelength header; expected optional ID columns then at least {MinimumWavelengths} ascending wavelengths in nm"));
+                    yield return () => e;
                     yield break;
                 }
                 if (HeaderProblem(header, idColumns, d) is var (col, message))
                 {
-                    yield return new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, lineNo, col, message)) { Line = lineNo };
+                    var e = new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, lineNo, col, message)) { Line = lineNo };
+                    yield return () => e;
                     yield break;
                 }
-                expectedCells = header.Length;
-                metadataNames = new string[idColumns];
-                for (int i = 1; i < idColumns; i++) metadataNames[i] = MetadataName(header, i);
-                wavelengths = new double[header.Length - idColumns];
-                for (int i = 0; i < wavelengths.Length; i++) DelimitedSpectrumReader.TryParseNumber(header[idColumns + i], d, out wavelengths[i]);
+                parser = new RowParser(source, stem, declared ?? SpectralUnit.Relative, d, header, idColumns, preamble);
                 continue;
             }
             rows++;
-            yield return ParseRow(t, lineNo);
+            string row = t;
+            int at = lineNo;
+            var p = parser;
+            yield return () => p.Parse(row, at);
         }
-        if (wavelengths is not null && rows == 0)
-            yield return new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, Math.Max(1, lineNo), 1, "header only; expected one row per unit after the wavelength header"));
-        if (wavelengths is null)
-            yield return new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, Math.Max(1, lineNo), 1, "empty file; expected a wavelength header row"));
-
-        InputRecord ParseRow(string row, int ln)
+        if (parser is not null && rows == 0)
         {
-            var cells = Cells(row, d);
-            string name = idColumns > 0 && cells.Length > 0 && cells[0].Length > 0 ? cells[0] : $"{stem}:{ln}";
+            var e = new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, Math.Max(1, lineNo), 1, "header only; expected one row per unit after the wavelength header"));
+            yield return () => e;
+        }
+        if (parser is null)
+        {
+            var e = new ErrorRecord(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, Math.Max(1, lineNo), 1, "empty file; expected a wavelength header row"));
+            yield return () => e;
+        }
+    }
+
+    /// <summary>Parses data rows once the header is known: immutable, so rows may be parsed on any thread.</summary>
+    private sealed class RowParser
+    {
+        private readonly string _source, _stem;
+        private readonly SpectralUnit _unit;
+        private readonly char _d;
+        private readonly int _idColumns, _expectedCells;
+        private readonly double[] _wavelengths;
+        private readonly string[] _metadataNames;
+        private readonly IReadOnlyList<KeyValuePair<string, string>> _preamble;
+
+        public RowParser(string source, string stem, SpectralUnit unit, char d, string[] header, int idColumns, List<KeyValuePair<string, string>> preamble)
+        {
+            _source = source;
+            _stem = stem;
+            _unit = unit;
+            _d = d;
+            _idColumns = idColumns;
+            _expectedCells = header.Length;
+            _metadataNames = new string[idColumns];
+            for (int i = 1; i < idColumns; i++) _metadataNames[i] = MetadataName(header, i);
+            _wavelengths = new double[header.Length - idColumns];
+            for (int i = 0; i < _wavelengths.Length; i++) DelimitedSpectrumReader.TryParseNumber(header[idColumns + i], d, out _wavelengths[i]);
+            _preamble = preamble.Count == 0 ? [] : Preamble.Merge(preamble);
+        }
+
+        public InputRecord Parse(string row, int ln)
+        {
+            var cells = Cells(row, _d);
+            string name = _idColumns > 0 && cells.Length > 0 && cells[0].Length > 0 ? cells[0] : $"{_stem}:{ln}";
             var metadata = Metadata(cells);
-            if (cells.Length != expectedCells)
-                return new ErrorRecord(source, 0, name, new ReadDiagnostic(source, ln, Math.Min(cells.Length, expectedCells) + 1,
-                    $"ragged row: expected {expectedCells} cells, found {cells.Length}")) { Line = ln, Metadata = metadata };
-            var values = new double[wavelengths!.Length];
+            if (cells.Length != _expectedCells)
+                return new ErrorRecord(_source, 0, name, new ReadDiagnostic(_source, ln, Math.Min(cells.Length, _expectedCells) + 1,
+                    $"ragged row: expected {_expectedCells} cells, found {cells.Length}")) { Line = ln, Metadata = metadata };
+            var values = new double[_wavelengths.Length];
             for (int i = 0; i < values.Length; i++)
             {
-                var cell = cells[idColumns + i];
-                if (!DelimitedSpectrumReader.TryParseNumber(cell, d, out values[i]))
-                    return new ErrorRecord(source, 0, name, new ReadDiagnostic(source, ln, idColumns + i + 1,
+                var cell = cells[_idColumns + i];
+                if (!DelimitedSpectrumReader.TryParseNumber(cell, _d, out values[i]))
+                    return new ErrorRecord(_source, 0, name, new ReadDiagnostic(_source, ln, _idColumns + i + 1,
                         cell.Length == 0 ? "empty cell; expected a number" : $"'{(cell.Length > 24 ? cell[..21] + "..." : cell)}' is not a number; expected a finite decimal number")) { Line = ln, Metadata = metadata };
             }
             try
             {
-                var s = new Spectrum(wavelengths, values, declared ?? SpectralUnit.Relative, name, new SpectrumOrigin($"{source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" });
-                return new SpectrumRecord(source, 0, name, s) { Line = ln, Metadata = metadata };
+                var s = new Spectrum(_wavelengths, values, _unit, name, new SpectrumOrigin($"{_source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" });
+                return new SpectrumRecord(_source, 0, name, s) { Line = ln, Metadata = metadata };
             }
             catch (InvalidSpectrumException ex)
             {
-                return new ErrorRecord(source, 0, name, new ReadDiagnostic(source, ln, 1, ex.Message)) { Line = ln, Metadata = metadata };
+                return new ErrorRecord(_source, 0, name, new ReadDiagnostic(_source, ln, 1, ex.Message)) { Line = ln, Metadata = metadata };
             }
         }
 
         // The preamble, then this row's metadata cells (those it has: a ragged row keeps what it carries).
-        IReadOnlyList<KeyValuePair<string, string>> Metadata(string[] cells)
+        private IReadOnlyList<KeyValuePair<string, string>> Metadata(string[] cells)
         {
-            if (idColumns <= 1) return preambleOnly ??= preamble.Count == 0 ? [] : Preamble.Merge(preamble);
-            var entries = new List<KeyValuePair<string, string>>(preamble);
-            for (int i = 1; i < idColumns && i < cells.Length; i++) entries.Add(new(metadataNames[i], cells[i]));
+            if (_idColumns <= 1) return _preamble;
+            var entries = new List<KeyValuePair<string, string>>(_preamble);
+            for (int i = 1; i < _idColumns && i < cells.Length; i++) entries.Add(new(_metadataNames[i], cells[i]));
             return Preamble.Merge(entries);
         }
     }

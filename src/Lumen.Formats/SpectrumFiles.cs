@@ -18,12 +18,27 @@ public static class SpectrumFiles
     /// <param name="layout">Layout, or null to detect it from the first non-comment row.</param>
     /// <param name="progress">Optional byte counter, advanced as the file is consumed.</param>
     /// <returns>Records in file order.</returns>
-    public static IEnumerable<InputRecord> Read(string path, SpectralUnit? unit = null, TextReader? stdin = null, TableLayout? layout = null, ReadProgress? progress = null)
+    public static IEnumerable<InputRecord> Read(string path, SpectralUnit? unit = null, TextReader? stdin = null, TableLayout? layout = null, ReadProgress? progress = null) =>
+        ReadDeferred(path, unit, stdin, layout, progress).Select(parse => parse());
+
+    /// <summary>
+    /// As <see cref="Read"/>, but each record is parsed when its item is called: the file is read on the calling thread,
+    /// and a row-layout row's numbers can be parsed on any thread (column-layout and TM-27 records come parsed). Calling
+    /// the items in order gives exactly <see cref="Read"/>'s records.
+    /// </summary>
+    /// <param name="path">File path or <c>-</c>.</param>
+    /// <param name="unit">Unit when the file declares none.</param>
+    /// <param name="stdin">Standard input for <c>-</c>.</param>
+    /// <param name="layout">Layout, or null to detect it.</param>
+    /// <param name="progress">Optional byte counter.</param>
+    /// <returns>One item per record, in file order.</returns>
+    public static IEnumerable<Func<InputRecord>> ReadDeferred(string path, SpectralUnit? unit = null, TextReader? stdin = null, TableLayout? layout = null, ReadProgress? progress = null)
     {
         ArgumentNullException.ThrowIfNull(path);
+        static IEnumerable<Func<InputRecord>> One(InputRecord r) => [() => r];
         if (path == "-") return ReadOnce(() => (stdin ?? Console.In, null), "-", "stdin", unit, layout, progress);
-        if (Directory.Exists(path)) return [ErrorRecord.ForFile(path, "is a folder; give the folder itself as an input to read the spectrum files in it")];
-        if (!File.Exists(path)) return [ErrorRecord.ForFile(path, "file not found")];
+        if (Directory.Exists(path)) return One(ErrorRecord.ForFile(path, "is a folder; give the folder itself as an input to read the spectrum files in it"));
+        if (!File.Exists(path)) return One(ErrorRecord.ForFile(path, "file not found"));
         return ReadOnce(() =>
         {
             var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
@@ -31,41 +46,44 @@ public static class SpectrumFiles
         }, path, Path.GetFileNameWithoutExtension(path), unit, layout, progress);
     }
 
-    private static IEnumerable<InputRecord> ReadOnce(Func<(TextReader Reader, Stream? Stream)> open, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
+    private static IEnumerable<Func<InputRecord>> ReadOnce(Func<(TextReader Reader, Stream? Stream)> open, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
     {
         TextReader text;
         Stream? stream;
         try { (text, stream) = open(); }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            return [ErrorRecord.ForFile(source, $"cannot read: {ex.Message}")];
+            var e = ErrorRecord.ForFile(source, $"cannot read: {ex.Message}");
+            return [() => e];
         }
         return Stream(text, stream, source, stem, unit, layout, progress);
     }
 
-    private static IEnumerable<InputRecord> Stream(TextReader text, Stream? stream, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
+    private static IEnumerable<Func<InputRecord>> Stream(TextReader text, Stream? stream, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
     {
         using var lines = new LineReader(text);
         long reported = 0;
-        IEnumerator<InputRecord>? records = null;
+        IEnumerator<Func<InputRecord>>? records = null;
+        static IEnumerable<Func<InputRecord>> Ready(IEnumerable<InputRecord> all) => all.Select(r => (Func<InputRecord>)(() => r));
         try
         {
             while (true)
             {
-                InputRecord? next = null, failure = null;
+                Func<InputRecord>? next = null;
+                InputRecord? failure = null;
                 try
                 {
                     if (records is null)
                     {
                         var first = lines.PeekFirstDataLine();
                         if (first is not null && Tm27.Looks(first))
-                            records = Tm27.Read(lines.AsCharacterStream(), source, stem).GetEnumerator(); // detected by content
+                            records = Ready(Tm27.Read(lines.AsCharacterStream(), source, stem)).GetEnumerator(); // detected by content
                         else
                         {
                             var kind = layout ?? (first is not null ? RowSpectrumReader.DetectLayout(first) : TableLayout.Columns);
                             records = (kind == TableLayout.Rows
-                                ? RowSpectrumReader.Read(lines, source, stem, unit)
-                                : DelimitedSpectrumReader.Read(lines, source, stem, unit)).GetEnumerator();
+                                ? RowSpectrumReader.ReadDeferred(lines, source, stem, unit)
+                                : Ready(DelimitedSpectrumReader.Read(lines, source, stem, unit))).GetEnumerator();
                         }
                     }
                     if (records.MoveNext()) next = records.Current;
@@ -83,7 +101,7 @@ public static class SpectrumFiles
                     long position = stream.CanSeek ? stream.Position : reported;
                     if (position != reported) { progress.Add(position - reported); reported = position; }
                 }
-                if (failure is not null) { yield return failure; yield break; }
+                if (failure is not null) { yield return () => failure; yield break; }
                 if (next is null) yield break;
                 yield return next;
             }

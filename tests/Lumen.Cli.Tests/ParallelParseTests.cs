@@ -1,0 +1,67 @@
+using Lumen.Cli;
+using Lumen.Formats;
+
+namespace Lumen.Cli.Tests;
+
+/// <summary>Rows parsed on the compute threads give the same bytes and diagnostics as parsing on one (issue 16).</summary>
+public sealed class ParallelParseTests : IDisposable
+{
+    private readonly string _dir = Path.Combine(Path.GetTempPath(), $"lumen-pp-{Guid.NewGuid():N}");
+
+    public ParallelParseTests() => Directory.CreateDirectory(_dir);
+
+    public void Dispose() => Directory.Delete(_dir, true);
+
+    /// <summary>A hostile corpus of our own making: faults of every kind a row file can have.</summary>
+    private string[] Corpus()
+    {
+        string wl = string.Join(',', Enumerable.Range(0, 81).Select(i => 380 + 5 * i));
+        string Row(Func<int, string> cell) => string.Join(',', Enumerable.Range(0, 81).Select(cell));
+        var files = new Dictionary<string, string>
+        {
+            ["hash-ids.csv"] = $"id,{wl}\n#1,{Row(i => "1")}\n#2,{Row(i => (1 + i * 0.01).ToString(System.Globalization.CultureInfo.InvariantCulture))}\n",
+            ["faults.csv"] = $"# station: EOL-9\nid,bin,{wl}\nA,x,{Row(i => i == 4 ? "n/a" : "1")}\nB,y,{Row(i => i == 9 ? "" : "2")}\nC,z,{Row(i => "3")},9\nD,w,{Row(i => "1e-320")}\nE,v,{Row(i => "1e300")}\nF,u,{Row(i => "0")}\n",
+            ["header-typo.csv"] = $"id,{wl.Replace("500", "5OO", StringComparison.Ordinal)}\nA,{Row(i => "1")}\n",
+            ["header-only.csv"] = $"id,{wl}\n",
+            ["empty.csv"] = "",
+        };
+        foreach (var (name, text) in files) File.WriteAllText(Path.Combine(_dir, name), text);
+        return [.. files.Keys.Select(n => Path.Combine(_dir, n)), Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"),
+            Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv")];
+    }
+
+    [Fact]
+    public void Batch_output_and_diagnostics_are_byte_identical_on_one_and_four_threads()
+    {
+        var inputs = Corpus();
+        string one = Path.Combine(_dir, "one.csv"), four = Path.Combine(_dir, "four.csv");
+        var a = CliTests.Run("", ["batch", .. inputs, "--nominal-cct", "3000", "--steps", "5", "--min", "ra=80", "--threads", "1", "-o", one, "--summary", one + ".json"]);
+        var b = CliTests.Run("", ["batch", .. inputs, "--nominal-cct", "3000", "--steps", "5", "--min", "ra=80", "--threads", "4", "-o", four, "--summary", four + ".json"]);
+        Assert.Equal(a.Code, b.Code);
+        Assert.Equal(ExitCodes.InputErrors, a.Code);
+        Assert.Equal(File.ReadAllBytes(one), File.ReadAllBytes(four));
+        Assert.Equal(File.ReadAllBytes(one + ".json"), File.ReadAllBytes(four + ".json"));
+        Assert.Equal(a.Err, b.Err);
+        Assert.Contains(":1:", a.Err, StringComparison.Ordinal); // the header typo, located
+    }
+
+    [Fact]
+    public void Deferred_rows_parsed_in_any_order_equal_the_streamed_records()
+    {
+        foreach (var file in Corpus())
+        {
+            var streamed = SpectrumFiles.Read(file).Select(Describe).ToList();
+            var deferred = SpectrumFiles.ReadDeferred(file).ToList();
+            var parsed = new string[deferred.Count];
+            Parallel.For(0, deferred.Count, i => parsed[deferred.Count - 1 - i] = Describe(deferred[deferred.Count - 1 - i]()));
+            Assert.Equal(streamed, parsed);
+        }
+    }
+
+    private static string Describe(Lumen.Analysis.InputRecord r) => r switch
+    {
+        Lumen.Analysis.SpectrumRecord s => $"{s.Location}|{s.Name}|{string.Join(';', s.Metadata)}|{string.Join(',', s.Spectrum.Values.ToArray())}|{s.Spectrum.Unit}",
+        Lumen.Analysis.ErrorRecord e => $"{e.Location}|{e.Name}|{string.Join(';', e.Metadata)}|{e.Error}",
+        _ => "?",
+    };
+}
