@@ -40,12 +40,12 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     [
         Column<RecordOutcome>.Text("id", o => o.Record.Name, "Unit"),
         Column<RecordOutcome>.Text("status", o => o.Status, "Verdict"),
-        AnalysisColumns.Field("cct.kelvin", "0", "CCT (K)"),
-        AnalysisColumns.Field("cct.duv", "+0.0000;-0.0000;0.0000", "Duv"),
+        AnalysisColumns.Field("cct.kelvin", null, "CCT (K)"),
+        AnalysisColumns.Field("cct.duv", null, "Duv"),
         Column<RecordOutcome>.Number("steps_from_target", o => o.Verdict?.StepsFromTarget, "0.0", "Steps"),
-        AnalysisColumns.Field("cri.ra", "0.0", "Ra"),
-        AnalysisColumns.Field("cri.r9", "0.0", "R9"),
-        AnalysisColumns.Field("fidelity.rf", "0.0", "Rf"),
+        AnalysisColumns.Field("cri.ra", null, "Ra"),
+        AnalysisColumns.Field("cri.r9", null, "R9"),
+        AnalysisColumns.Field("fidelity.rf", null, "Rf"),
         Column<RecordOutcome>.Text("failed", o => o.Verdict is { } v ? string.Join(" | ", v.Criteria.Where(c => !c.Pass).Select(c => c.Criterion)) : null, "Failed"),
     ]);
 

@@ -14,16 +14,16 @@ public static class AnalysisColumns
     public static ColumnSchema<RecordOutcome> Table { get; } = new(
     [
         Column<RecordOutcome>.Text("name", o => o.Record.Name, "Name"),
-        Field("cct.kelvin", "0", "CCT (K)"),
-        Field("cct.duv", "+0.0000;-0.0000;0.0000", "Duv"),
-        Field("chromaticity.x", "0.0000", "x"),
-        Field("chromaticity.y", "0.0000", "y"),
-        Field("chromaticity.uPrime", "0.0000", "u'"),
-        Field("chromaticity.vPrime", "0.0000", "v'"),
-        Field("cri.ra", "0.0", "Ra"),
-        Field("cri.r9", "0.0", "R9"),
-        Field("fidelity.rf", "0.0", "Rf"),
-        Field("fidelity.rg", "0.0", "Rg"),
+        Field("cct.kelvin", null, "CCT (K)"),
+        Field("cct.duv", null, "Duv"),
+        Field("chromaticity.x", null, "x"),
+        Field("chromaticity.y", null, "y"),
+        Field("chromaticity.uPrime", null, "u'"),
+        Field("chromaticity.vPrime", null, "v'"),
+        Field("cri.ra", null, "Ra"),
+        Field("cri.r9", null, "R9"),
+        Field("fidelity.rf", null, "Rf"),
+        Field("fidelity.rg", null, "Rg"),
     ]);
 
     /// <summary>The CSV with a specification: every column of <see cref="Csv"/>, then <c>verdict</c> (pass/fail) and <c>failed</c> (the criteria that failed).</summary>
@@ -35,13 +35,13 @@ public static class AnalysisColumns
     /// <summary>A numeric column named by its result-field path and read through <see cref="ResultFields.Accessor"/> (resolved once), so a
     /// quantity has one name in specs, CSV headers, summaries and reports.</summary>
     /// <param name="path">The field path (must be known to <see cref="ResultFields"/>).</param>
-    /// <param name="format">Number format for text tables.</param>
+    /// <param name="format">Number format for text tables; null for the quantity's rule (<see cref="ResultFields.DisplayFormat"/>).</param>
     /// <param name="title">Title for text tables, or null for the path.</param>
     /// <returns>The column.</returns>
-    public static Column<RecordOutcome> Field(string path, string format = "0.####", string? title = null)
+    public static Column<RecordOutcome> Field(string path, string? format = null, string? title = null)
     {
         var get = ResultFields.Accessor(path);
-        return Column<RecordOutcome>.Number(path, o => o.Assessment is { } a ? get(a) : null, format, title);
+        return Column<RecordOutcome>.Number(path, o => o.Assessment is { } a ? get(a) : null, format ?? ResultFields.DisplayFormat(path), title);
     }
 
     /// <summary>

@@ -54,10 +54,10 @@ public static class AnalysisWriter
     }
 
     /// <summary>The value ± standard uncertainty of the table's main results, when the run propagated uncertainty.</summary>
-    private static readonly (string Path, string Heading, string Format)[] UncertaintyTable =
+    private static readonly (string Path, string Heading)[] UncertaintyTable =
     [
-        ("cct.kelvin", "CCT (K)", "0"), ("cct.duv", "Duv", "+0.0000;-0.0000;0.0000"), ("chromaticity.x", "x", "0.0000"), ("chromaticity.y", "y", "0.0000"),
-        ("cri.ra", "Ra", "0.0"), ("cri.r9", "R9", "0.0"), ("fidelity.rf", "Rf", "0.0"), ("fidelity.rg", "Rg", "0.0"),
+        ("cct.kelvin", "CCT (K)"), ("cct.duv", "Duv"), ("chromaticity.x", "x"), ("chromaticity.y", "y"),
+        ("cri.ra", "Ra"), ("cri.r9", "R9"), ("fidelity.rf", "Rf"), ("fidelity.rg", "Rg"),
     ];
 
     private static void WriteUncertaintyText(IReadOnlyList<RecordOutcome> items, TextWriter output)
@@ -69,8 +69,9 @@ public static class AnalysisWriter
         output.WriteLine($"Measurement uncertainty: value ± standard uncertainty (k = 1), Monte Carlo with {u0.Draws:N0} draws (JCGM 101:2008), seed {u0.Seed}; 95 % intervals in JSON and CSV.");
         output.WriteLine($"Model: {u0.Model.Description}.");
         var columns = new List<Column<RecordOutcome>> { Column<RecordOutcome>.Text("name", o => o.Record.Name, "Name") };
-        foreach (var (path, heading, format) in UncertaintyTable)
+        foreach (var (path, heading) in UncertaintyTable)
         {
+            string format = ResultFields.DisplayFormat(path);
             var get = ResultFields.Accessor(path);
             string spread = format.StartsWith('+') ? "0.0000" : format;
             columns.Add(Column<RecordOutcome>.Text(path, o => o.Assessment is { } a && get(a) is { } v && double.IsFinite(v)

@@ -113,6 +113,26 @@ public static class ResultFields
         _ => "rhodopic",
     };
 
+    /// <summary>
+    /// The display format of a field's value in tables and reports — one rounding rule per quantity everywhere (common
+    /// reporting practice): CCT to 1 K, Duv and chromaticity coordinates to 4 decimals (Duv signed), rendition indices
+    /// and LER to 0.1, anything else to at most 4 decimals. Machine formats (CSV, JSON) keep every digit.
+    /// </summary>
+    /// <param name="path">A field path such as <c>cct.duv</c> (unknown paths get the general format).</param>
+    /// <returns>A .NET numeric format string.</returns>
+    public static string DisplayFormat(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        return path switch
+        {
+            "cct.kelvin" => "0",
+            "cct.duv" => "+0.0000;-0.0000;0.0000",
+            _ when path.StartsWith("chromaticity", StringComparison.Ordinal) => "0.0000",
+            _ when path.StartsWith("cri.", StringComparison.Ordinal) || path.StartsWith("fidelity.", StringComparison.Ordinal) || path.StartsWith("photometry.ler", StringComparison.Ordinal) => "0.0",
+            _ => "0.####",
+        };
+    }
+
     /// <summary>Observer label used in every output: <c>2</c> or <c>10</c>.</summary>
     /// <param name="observer">The CIE 1931 2° or CIE 1964 10° observer.</param>
     /// <returns>The label.</returns>
