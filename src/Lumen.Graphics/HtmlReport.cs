@@ -153,10 +153,12 @@ public static class HtmlReport
         var sb = new StringBuilder();
         string heading = spec is not null ? "Light source report — " + spec.Spec.Name : "Light source report";
         Head(sb, heading, context);
+        // Each item's verdict once: the one it carries, else evaluated here (callers may pass outcomes without one).
+        var verdicts = items.Select(i => i.Verdict ?? (spec is not null && i.Assessment is { } a0 ? spec.Evaluate(a0) : null)).ToArray();
         string? verdict = null;
         if (spec is not null)
         {
-            int fail = items.Count(i => i.Assessment is not null && !spec.Evaluate(i.Assessment).Pass), errors = items.Count(i => i.Assessment is null);
+            int fail = verdicts.Count(v => v is { Pass: false }), errors = items.Count(i => i.Assessment is null);
             int pass = items.Count - fail - errors;
             verdict = string.Create(Inv, $"{(fail + errors == 0 ? "<span class=\"pass\">All pass</span>" : "<span class=\"fail\">Not all pass</span>")}: {pass} pass, {fail} fail{(errors > 0 ? $", {errors} unreadable" : "")} of {items.Count}.");
         }
@@ -166,7 +168,7 @@ public static class HtmlReport
         if (spec is not null) sb.Append("<th>verdict</th>");
         sb.Append("</tr>");
         var numbered = items.Select((item, i) => (Item: item, K: i + 1)).ToList();
-        var shown = spec is null ? numbered : numbered.OrderBy(x => x.Item.Assessment is { } a0 ? (spec.Evaluate(a0).Pass ? 2 : 0) : 1).ToList();
+        var shown = spec is null ? numbered : numbered.OrderBy(x => x.Item.Assessment is null ? 1 : verdicts[x.K - 1]!.Pass ? 2 : 0).ToList();
         foreach (var (item, k) in shown)
         {
             if (item.Assessment is not { } a)
@@ -177,11 +179,7 @@ public static class HtmlReport
             var c = a.Chromaticity2Degree;
             string xy = Rounding.Value("chromaticity.x");
             sb.Append(Inv, $"<tr><td class=\"t\"><a href=\"#unit-{k}\">{E(a.Name)}</a></td><td class=\"t\">{E(a.Origin.ToString())}</td><td>{F(a.Cct.CctKelvin, Rounding.Value("cct.kelvin"))}</td><td>{F(a.Cct.Duv, Rounding.Value("cct.duv"))}</td><td>{F(c.SmallX, xy)}</td><td>{F(c.SmallY, xy)}</td><td>{F(c.UPrime, xy)}</td><td>{F(c.VPrime, xy)}</td><td>{F(a.Cri?.Ra, Rounding.Value("cri.ra"))}</td><td>{F(a.Cri?.R9, Rounding.Value("cri.r9"))}</td><td>{F(a.Fidelity?.Rf, Rounding.Value("fidelity.rf"))}</td><td>{F(a.Fidelity?.Rg, Rounding.Value("fidelity.rg"))}</td>");
-            if (spec is not null)
-            {
-                var v = spec.Evaluate(a);
-                sb.Append(v.Pass ? "<td class=\"t pass\">pass</td>" : "<td class=\"t fail\">fail</td>");
-            }
+            if (verdicts[k - 1] is { } v) sb.Append(v.Pass ? "<td class=\"t pass\">pass</td>" : "<td class=\"t fail\">fail</td>");
             sb.Append("</tr>");
         }
         sb.Append("</table>");
@@ -190,20 +188,18 @@ public static class HtmlReport
         if (ok.Count > 0)
         {
             sb.Append("<h2>Chromaticity</h2>");
-            var pts = ok.Select(i => new DiagramPoint(i.Record.Name, i.Assessment!.Chromaticity2Degree, Status(spec, i.Assessment!))).ToList();
+            var pts = numbered.Where(x => x.Item.Assessment is not null)
+                .Select(x => new DiagramPoint(x.Item.Record.Name, x.Item.Assessment!.Chromaticity2Degree, verdicts[x.K - 1] is not { } v ? PointStatus.None : v.Pass ? PointStatus.Pass : PointStatus.Fail)).ToList();
             sb.Append(InlineSvg(1200, 900, (cv, z) => ChromaticityDiagram.Draw(cv, z, new DiagramOptions(space, pts, spec, SpaceTitle(space, "Chromaticity"))), "locus", "chromaticity diagram"));
         }
         foreach (var (item, k) in shown)
-            if (item.Assessment is { } a) Detail(sb, a, item.Record, spec, k);
+            if (item.Assessment is { } a) Detail(sb, a, item.Record, verdicts[k - 1], k);
         Appendix(sb, context);
         sb.Append("</main></body></html>");
         return sb.ToString();
     }
 
-    private static PointStatus Status(PreparedSpec? spec, Assessment a) =>
-        spec is null ? PointStatus.None : spec.Evaluate(a).Pass ? PointStatus.Pass : PointStatus.Fail;
-
-    private static void Detail(StringBuilder sb, Assessment a, InputRecord record, PreparedSpec? spec, int k)
+    private static void Detail(StringBuilder sb, Assessment a, InputRecord record, Verdict? verdict, int k)
     {
         sb.Append(Inv, $"<section id=\"unit-{k}\"><h2>{E(a.Name)}</h2><p class=\"muted\">{E(a.Origin.ToString())}; unit {E(Lumen.Spectra.SpectralUnits.Symbol(a.Unit))}</p>");
         foreach (var w in a.Warnings) sb.Append("<div class=\"warn\">").Append(E(w)).Append("</div>");
@@ -246,9 +242,8 @@ public static class HtmlReport
             foreach (var b in f.HueBins) sb.Append("<td>").Append(F(b.Rhs, "0.00")).Append("</td>");
             sb.Append("</tr></table>");
         }
-        if (spec is not null)
+        if (verdict is { } v)
         {
-            var v = spec.Evaluate(a);
             sb.Append("<h3>Verdict: ").Append(v.Pass ? "<span class=\"pass\">pass</span>" : "<span class=\"fail\">fail</span>").Append("</h3><table><tr><th>criterion</th><th>measured</th><th>limit</th><th>margin</th><th>result</th></tr>");
             foreach (var cr2 in v.Criteria)
                 sb.Append(Inv, $"<tr><td class=\"t\">{E(cr2.Criterion)}</td><td>{F(cr2.Measured, Rounding.Value(cr2.Criterion))}</td><td class=\"t\">{E(cr2.Limit)}</td><td>{F(cr2.Margin, Rounding.Spread(cr2.Criterion))}</td><td class=\"t {(cr2.Pass ? "pass" : "fail")}\">{(cr2.Pass ? "pass" : "fail")}</td></tr>");
@@ -406,7 +401,7 @@ public static class HtmlReport
         }
         sb.Append(Inv, $"</table><h2>Unit detail</h2><p class=\"muted\">The first {DetailLimit} units with results, failures first.</p>");
         foreach (var (it, k) in ordered.Where(x => detailed.Contains(x.K)))
-            Detail(sb, it.Assessment!, it.Record, spec, k);
+            Detail(sb, it.Assessment!, it.Record, it.Verdict ?? spec.Evaluate(it.Assessment!), k);
         Appendix(sb, context);
         sb.Append("</main></body></html>");
         return sb.ToString();
