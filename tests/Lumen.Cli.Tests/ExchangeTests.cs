@@ -48,7 +48,8 @@ public sealed class ExchangeTests : IDisposable
         Assert.Contains("Planck's law, T = 2856 K", text, StringComparison.Ordinal); // the comment survived the round trip
         Assert.Contains("<SpectralQuantity>radiance</SpectralQuantity>", text, StringComparison.Ordinal);
         var a = First(CliTests.Run("", "analyze", spdx, "--format", "json").Out);
-        Assert.InRange(a.GetProperty("cct").GetProperty("kelvin").GetDouble(), 2855, 2857); // CIE illuminant A's blackbody
+        // A Planckian radiator's CCT is its temperature (CIE 15: illuminant A is one at 2856 K); ±1 K for the 1 nm sampling.
+        Assert.InRange(a.GetProperty("cct").GetProperty("kelvin").GetDouble(), 2855, 2857);
         Assert.Equal("radiance", a.GetProperty("metadata").GetProperty("spectralQuantity").GetString());
         // The same spectrum exported as CSV reads back to the same results.
         var csvOut = Path.Combine(_dir, "bb.csv");
