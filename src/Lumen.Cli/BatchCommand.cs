@@ -32,6 +32,9 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     /// <summary>Records computed per parallel chunk (input order is kept).</summary>
     internal const int ChunkSize = 512;
 
+    /// <summary>Records assessed together (one rendition block, issue 16): 16 spectra share each pass over the sample weights.</summary>
+    internal const int BlockSize = 16;
+
     /// <summary>Most rows of the terminal table, and most passing rows among them.</summary>
     private const int TerminalRowLimit = 200, TerminalPassRows = 20;
 
@@ -260,8 +263,18 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         {
             foreach (var chunk in toCompute.GetConsumingEnumerable())
             {
+                // Blocks of records: each block's rows are parsed and its rendition indices computed together
+                // (RecordOutcome.OfMany), which streams the sample weights once per few spectra instead of once per spectrum.
                 var results = new RecordOutcome[chunk.Count];
-                Parallel.For(0, chunk.Count, po, i => results[i] = UncertaintyOptions.Propagate(RecordOutcome.Of(chunk[i](), options, spec), options, spec, _model, _run, _rule));
+                int blocks = (chunk.Count + BlockSize - 1) / BlockSize;
+                Parallel.For(0, blocks, po, b =>
+                {
+                    int from = b * BlockSize, to = Math.Min(chunk.Count, from + BlockSize);
+                    var records = new InputRecord[to - from];
+                    for (int i = from; i < to; i++) records[i - from] = chunk[i]();
+                    var outcomes = RecordOutcome.OfMany(records, options, spec);
+                    for (int i = from; i < to; i++) results[i] = UncertaintyOptions.Propagate(outcomes[i - from], options, spec, _model, _run, _rule);
+                });
                 toWrite.Add(results);
             }
         }

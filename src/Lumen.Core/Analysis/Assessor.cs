@@ -25,7 +25,78 @@ public static class Assessor
     public static Assessment Assess(Spectrum spectrum, AssessmentOptions? options = null)
     {
         ArgumentNullException.ThrowIfNull(spectrum);
+        return AssessMany([spectrum], options)[0];
+    }
+
+    /// <summary>
+    /// Assesses many spectra at once: the same assessments as <see cref="Assess"/> on each (rendition indices within
+    /// 1e-9: only the order of the floating-point sums differs), with the rendition indices of the whole block computed
+    /// together (<see cref="ColorRenderingIndex.ComputeMany"/>, <see cref="FidelityIndex.ComputeMany"/>), which is several
+    /// times faster per spectrum. Give blocks of 8–32 spectra.
+    /// </summary>
+    /// <param name="spectra">The measured spectra.</param>
+    /// <param name="options">Options; null for defaults.</param>
+    /// <returns>One assessment per spectrum, in order.</returns>
+    public static Assessment[] AssessMany(IReadOnlyList<Spectrum> spectra, AssessmentOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(spectra);
         options ??= AssessmentOptions.Default;
+        var stages = new Stage[spectra.Count];
+        for (int i = 0; i < spectra.Count; i++) stages[i] = Prepare(spectra[i] ?? throw new ArgumentException("A spectrum is null.", nameof(spectra)), options);
+
+        bool wantCri = options.Metrics.HasFlag(MetricGroups.Cri), wantFidelity = options.Metrics.HasFlag(MetricGroups.Fidelity);
+        var rendered = new List<Stage>();
+        if (wantCri || wantFidelity)
+            foreach (var stage in stages)
+                if (RenditionComputable(stage.Cct, stage.Warnings)) rendered.Add(stage);
+        if (rendered.Count > 0)
+        {
+            var samples = new RegularSamples[rendered.Count];
+            var ccts = new double[rendered.Count];
+            for (int i = 0; i < rendered.Count; i++) { samples[i] = rendered[i].Samples; ccts[i] = rendered[i].Cct.CctKelvin; }
+            var cri = wantCri ? ColorRenderingIndex.ComputeMany(samples, ccts) : null;
+            var fidelity = wantFidelity ? FidelityIndex.ComputeMany(samples, ccts) : null;
+            for (int i = 0; i < rendered.Count; i++)
+            {
+                var stage = rendered[i];
+                if (cri is not null)
+                {
+                    stage.Cri = cri[i];
+                    if (!cri[i].DcValid)
+                        stage.Warnings.Add($"CIE 13.3: the chromaticity distance DC = {cri[i].Dc:0.0000} to the reference exceeds 5.4e-3; Ra is not reliable for this source.");
+                }
+                stage.Fidelity = fidelity?[i];
+                if (stage.Cct.Conditions.HasFlag(CctConditions.FarFromLocus))
+                    stage.Warnings.Add("Colour rendering indices compare the source with a reference at its CCT; with |Duv| > 0.05 that comparison is not meaningful.");
+            }
+        }
+
+        var result = new Assessment[stages.Length];
+        for (int i = 0; i < stages.Length; i++) result[i] = Finish(stages[i], options);
+        return result;
+    }
+
+    /// <summary>What is known of one spectrum before its rendition indices: scaled values, CIE sums, CCT, warnings.</summary>
+    private sealed class Stage(Spectrum spectrum, Spectrum work, double scale, RegularSamples samples, Tristimulus rawObserver,
+        Tristimulus relative, Chromaticity chroma, Chromaticity chroma2, CctResult cct, List<string> warnings)
+    {
+        public Spectrum Spectrum { get; } = spectrum;
+        public Spectrum Work { get; } = work;
+        public double Scale { get; } = scale;
+        public RegularSamples Samples { get; } = samples;
+        public Tristimulus RawObserver { get; } = rawObserver;
+        public Tristimulus Relative { get; } = relative;
+        public Chromaticity Chroma { get; } = chroma;
+        public Chromaticity Chroma2 { get; } = chroma2;
+        public CctResult Cct { get; } = cct;
+        public List<string> Warnings { get; } = warnings;
+        public CriResult? Cri { get; set; }
+        public FidelityResult? Fidelity { get; set; }
+    }
+
+    /// <summary>Everything before the rendition indices: range and sign warnings, scaling, CIE sums, chromaticity, CCT.</summary>
+    private static Stage Prepare(Spectrum spectrum, AssessmentOptions options)
+    {
         var warnings = new List<string>();
         if (CoverageWarning(spectrum) is { } coverage) warnings.Add(coverage);
         if (NegativeValueWarning(spectrum) is { } negative) warnings.Add(negative);
@@ -50,29 +121,22 @@ public static class Assessor
         var chroma2 = raw2.Y > 0 ? Chromaticity.FromXyz(raw2) : Chromaticity.FromXyz(default);
         var cct = CctSolver.Solve(chroma2, options.CctOptions);
         CctWarnings(cct, warnings);
+        return new Stage(spectrum, work, scale, samples, rawObs, rel, chroma, chroma2, cct, warnings);
+    }
 
-        CriResult? cri = null;
-        FidelityResult? fidelity = null;
-        bool wantCri = options.Metrics.HasFlag(MetricGroups.Cri), wantFidelity = options.Metrics.HasFlag(MetricGroups.Fidelity);
-        if ((wantCri || wantFidelity) && RenditionComputable(cct, warnings))
-        {
-            if (wantCri)
-            {
-                cri = ColorRenderingIndex.Compute(samples, cct.CctKelvin);
-                if (!cri.DcValid)
-                    warnings.Add($"CIE 13.3: the chromaticity distance DC = {cri.Dc:0.0000} to the reference exceeds 5.4e-3; Ra is not reliable for this source.");
-            }
-            if (wantFidelity) fidelity = FidelityIndex.Compute(samples, cct.CctKelvin);
-            if (cct.Conditions.HasFlag(CctConditions.FarFromLocus))
-                warnings.Add("Colour rendering indices compare the source with a reference at its CCT; with |Duv| > 0.05 that comparison is not meaningful.");
-        }
-
+    /// <summary>Everything after the rendition indices: photometry, CIE S 026, descriptors, provenance, absolute XYZ.</summary>
+    private static Assessment Finish(Stage stage, AssessmentOptions options)
+    {
+        var spectrum = stage.Spectrum;
+        var samples = stage.Samples;
+        var warnings = stage.Warnings;
+        double scale = stage.Scale;
+        var rawObs = stage.RawObserver;
         var photometry = options.Metrics.HasFlag(MetricGroups.Photometry) ? Rescaled(Photometer.Compute(samples, spectrum.Unit), scale, warnings) : null;
         var nonVisual = options.Metrics.HasFlag(MetricGroups.NonVisual) ? Rescaled(AlphaOpic.Compute(samples, spectrum.Unit), scale, warnings) : null;
-        var spectral = options.Metrics.HasFlag(MetricGroups.Spectral) ? SpectralDescriptors.Compute(work, chroma2) : null;
+        var spectral = options.Metrics.HasFlag(MetricGroups.Spectral) ? SpectralDescriptors.Compute(stage.Work, stage.Chroma2) : null;
         if (nonVisual is not null && (spectrum.FirstNm > ExpectedFirstNm || spectrum.LastNm < ExpectedLastNm))
             warnings.Add("CIE S 026 quantities need 380–780 nm; the missing part was taken as zero.");
-
         var cctOpt = options.CctOptions;
         var provenance = new Provenance(
             new Dictionary<string, string>
@@ -101,7 +165,7 @@ public static class Assessor
             if (double.IsFinite(t.X) && double.IsFinite(t.Y) && double.IsFinite(t.Z)) absolute = t;
             else if (!warnings.Contains(OverflowWarning)) warnings.Add(OverflowWarning);
         }
-        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, rel, absolute, chroma, chroma2, cct, cri, fidelity,
+        return new Assessment(spectrum.Name, spectrum.Origin, spectrum.Unit, options.Observer, stage.Relative, absolute, stage.Chroma, stage.Chroma2, stage.Cct, stage.Cri, stage.Fidelity,
             photometry, nonVisual, spectral, warnings, provenance);
     }
 

@@ -52,8 +52,7 @@ public sealed record RecordOutcome(InputRecord Record, Assessment? Assessment, V
                 catch (Exception ex) when (ex is not OutOfMemoryException and not OperationCanceledException)
                 {
                     // Per-record isolation: a computation that fails on one spectrum becomes that record's error row.
-                    return new RecordOutcome(record, null, null, new ReadDiagnostic(record.Source, record.Line, record.Column,
-                        $"could not compute this spectrum ({ex.GetType().Name}: {ex.Message}); please report it with the input"));
+                    return Failed(record, ex);
                 }
             case ErrorRecord e:
                 return new RecordOutcome(record, null, null, e.Error);
@@ -61,4 +60,43 @@ public sealed record RecordOutcome(InputRecord Record, Assessment? Assessment, V
                 throw new ArgumentException("Unknown record kind.", nameof(record));
         }
     }
+
+    /// <summary>
+    /// Assesses and judges many records at once: the same outcomes as <see cref="Of"/> on each, with the spectra's
+    /// rendition indices computed together (<see cref="Assessor.AssessMany"/>). Should the block's computation fail,
+    /// each record is computed alone, so a failure stays that one record's error row.
+    /// </summary>
+    /// <param name="records">The input records (spectra and error records, in any mix).</param>
+    /// <param name="options">What to compute.</param>
+    /// <param name="spec">The specification, or null for none.</param>
+    /// <returns>One outcome per record, in order.</returns>
+    public static RecordOutcome[] OfMany(IReadOnlyList<InputRecord> records, AssessmentOptions options, PreparedSpec? spec = null)
+    {
+        ArgumentNullException.ThrowIfNull(records);
+        ArgumentNullException.ThrowIfNull(options);
+        var spectra = new List<Spectra.Spectrum>(records.Count);
+        foreach (var r in records) if (r is SpectrumRecord s) spectra.Add(s.Spectrum);
+        var outcomes = new RecordOutcome[records.Count];
+        Assessment[] assessments;
+        try { assessments = Assessor.AssessMany(spectra, options); }
+        catch (Exception ex) when (ex is not OutOfMemoryException and not OperationCanceledException)
+        {
+            for (int i = 0; i < records.Count; i++) outcomes[i] = Of(records[i], options, spec);
+            return outcomes;
+        }
+        int next = 0;
+        for (int i = 0; i < records.Count; i++)
+        {
+            var record = records[i] ?? throw new ArgumentException("A record is null.", nameof(records));
+            if (record is not SpectrumRecord) { outcomes[i] = Of(record, options, spec); continue; }
+            var a = assessments[next++];
+            try { outcomes[i] = new RecordOutcome(record, a, spec?.Evaluate(a), null); }
+            catch (Exception ex) when (ex is not OutOfMemoryException and not OperationCanceledException) { outcomes[i] = Failed(record, ex); }
+        }
+        return outcomes;
+    }
+
+    private static RecordOutcome Failed(InputRecord record, Exception ex) =>
+        new(record, null, null, new ReadDiagnostic(record.Source, record.Line, record.Column,
+            $"could not compute this spectrum ({ex.GetType().Name}: {ex.Message}); please report it with the input"));
 }

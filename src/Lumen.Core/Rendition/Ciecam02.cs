@@ -1,3 +1,5 @@
+using System.Runtime.Intrinsics;
+
 namespace Lumen.Rendition;
 
 /// <summary>
@@ -16,6 +18,7 @@ internal sealed class Ciecam02
     private readonly double _fl, _n, _nbb, _ncb, _z, _c, _nc, _aw;
     private readonly double _chromaFactor, _fl025, _flOver100;
     private readonly double _dr, _dg, _db; // combined adaptation factors per channel
+    private readonly double[] _toCones; // row-major 3×3: XYZ to adapted Hunt–Pointer–Estévez responses
 
     /// <summary>Prepares the model for a white and viewing conditions.</summary>
     /// <param name="whiteX">X of the adopted white.</param>
@@ -39,6 +42,10 @@ internal sealed class Ciecam02
         _dg = whiteY * d / gw + 1 - d;
         _db = whiteY * d / bw + 1 - d;
         _flOver100 = _fl / 100;
+        _toCones = new double[9];
+        for (int i = 0; i < 3; i++)
+            for (int j = 0; j < 3; j++)
+                _toCones[3 * i + j] = HpeCat02Inverse[i, 0] * _dr * Cat02[0, j] + HpeCat02Inverse[i, 1] * _dg * Cat02[1, j] + HpeCat02Inverse[i, 2] * _db * Cat02[2, j];
         var (ra, ga, ba) = Compressed(whiteX, whiteY, whiteZ);
         _aw = (2 * ra + ga + ba / 20 - 0.305) * _nbb;
         _chromaFactor = Math.Pow(1.64 - Math.Pow(0.29, _n), 0.73);
@@ -86,66 +93,67 @@ internal sealed class Ciecam02
         Span<double> jPrime, Span<double> aPrime, Span<double> bPrime, Span<double> hueDegrees)
     {
         int n = x.Length;
-        if (y.Length != n || z.Length != n || jPrime.Length < n || aPrime.Length < n || bPrime.Length < n)
+        if (y.Length != n || z.Length != n || jPrime.Length < n || aPrime.Length < n || bPrime.Length < n || (!hueDegrees.IsEmpty && hueDegrees.Length < n))
             throw new ArgumentException("All spans must hold one value per stimulus.", nameof(x));
-        var m = HpeCat02Inverse;
-        Span<double> q = n <= 128 ? stackalloc double[3 * n] : new double[3 * n];
-        Span<double> t = n <= 128 ? stackalloc double[3 * n] : new double[3 * n];
-        for (int i = 0; i < n; i++)
+        if (n == 0) return;
+        // Four stimuli per step (Vector256, with vectorised log and exp); the inputs are copied into buffers padded to a
+        // multiple of four with the last stimulus, whose extra results are not copied out.
+        int padded = (n + 3) & ~3;
+        const int Buffers = 8;
+        Span<double> buffer = padded * Buffers <= 2048 ? stackalloc double[padded * Buffers] : new double[padded * Buffers];
+        Span<double> bx = buffer[..padded], by = buffer.Slice(padded, padded), bz = buffer.Slice(2 * padded, padded);
+        Span<double> oj = buffer.Slice(3 * padded, padded), oa = buffer.Slice(4 * padded, padded), ob = buffer.Slice(5 * padded, padded);
+        Span<double> ha = buffer.Slice(6 * padded, padded), hb = buffer.Slice(7 * padded, padded);
+        x.CopyTo(bx); y.CopyTo(by); z.CopyTo(bz);
+        bx[n..].Fill(x[n - 1]); by[n..].Fill(y[n - 1]); bz[n..].Fill(z[n - 1]);
+        var m = _toCones;
+        var m00 = Vector256.Create(m[0]); var m01 = Vector256.Create(m[1]); var m02 = Vector256.Create(m[2]);
+        var m10 = Vector256.Create(m[3]); var m11 = Vector256.Create(m[4]); var m12 = Vector256.Create(m[5]);
+        var m20 = Vector256.Create(m[6]); var m21 = Vector256.Create(m[7]); var m22 = Vector256.Create(m[8]);
+        var fl = Vector256.Create(_flOver100);
+        var chromaScale = Vector256.Create(50000.0 / 13 * _nc * _ncb);
+        var achromaticScale = Vector256.Create(_nbb / _aw);
+        var jExponent = Vector256.Create(_c * _z);
+        var mScale = Vector256.Create(_chromaFactor * _fl025);
+        for (int i = 0; i < padded; i += 4)
         {
-            var (r, g, b) = Mul(Cat02, x[i], y[i], z[i]);
-            r *= _dr; g *= _dg; b *= _db;
-            q[3 * i] = m[0, 0] * r + m[0, 1] * g + m[0, 2] * b;
-            q[3 * i + 1] = m[1, 0] * r + m[1, 1] * g + m[1, 2] * b;
-            q[3 * i + 2] = m[2, 0] * r + m[2, 1] * g + m[2, 2] * b;
-            t[3 * i] = _flOver100 * Math.Abs(q[3 * i]);
-            t[3 * i + 1] = _flOver100 * Math.Abs(q[3 * i + 1]);
-            t[3 * i + 2] = _flOver100 * Math.Abs(q[3 * i + 2]);
+            var vx = Vector256.Create(bx.Slice(i, 4)); var vy = Vector256.Create(by.Slice(i, 4)); var vz = Vector256.Create(bz.Slice(i, 4));
+            var ra = PostAdaptation(m00 * vx + m01 * vy + m02 * vz, fl);
+            var ga = PostAdaptation(m10 * vx + m11 * vy + m12 * vz, fl);
+            var ba = PostAdaptation(m20 * vx + m21 * vy + m22 * vz, fl);
+            var a = ra - ga * (12.0 / 11) + ba * (1.0 / 11);
+            var b = (ra + ga - ba * 2) * (1.0 / 9);
+            var rr = Vector256.Sqrt(a * a + b * b);
+            var positive = Vector256.GreaterThan(rr, Vector256<double>.Zero);
+            var cosH = Vector256.ConditionalSelect(positive, a / rr, Vector256<double>.One);
+            var sinH = Vector256.ConditionalSelect(positive, b / rr, Vector256<double>.Zero);
+            // e_t = ¼(cos(h + 2) + 3.8) with cos(h + 2) from cos h and sin h (no trigonometric call).
+            var et = (cosH * Cos2 - sinH * Sin2 + Vector256.Create(3.8)) * 0.25;
+            var ach = (ra * 2 + ga + ba * (1.0 / 20) - Vector256.Create(0.305)) * achromaticScale; // A / A_w
+            var t = chromaScale * et * rr / (ra + ga + ba * (21.0 / 20));
+            var jOver100 = Vector256.Exp(jExponent * Vector256.Log(ach));
+            var j = jOver100 * 100;
+            var colourfulness = Vector256.Exp(Vector256.Create(0.9) * Vector256.Log(t)) * Vector256.Sqrt(jOver100) * mScale;
+            var mp = Vector256.Log(Vector256<double>.One + colourfulness * 0.0228) * (1 / 0.0228);
+            (j * 1.7 / (Vector256<double>.One + j * 0.007)).CopyTo(oj.Slice(i, 4));
+            (mp * cosH).CopyTo(oa.Slice(i, 4));
+            (mp * sinH).CopyTo(ob.Slice(i, 4));
+            a.CopyTo(ha.Slice(i, 4)); b.CopyTo(hb.Slice(i, 4));
         }
-        PowInPlace(t, 0.42);
-        Span<double> ach = n <= 128 ? stackalloc double[n] : new double[n];
-        Span<double> tc = n <= 128 ? stackalloc double[n] : new double[n];
-        Span<double> av = n <= 128 ? stackalloc double[n] : new double[n];
-        Span<double> bv = n <= 128 ? stackalloc double[n] : new double[n];
+        oj[..n].CopyTo(jPrime); oa[..n].CopyTo(aPrime); ob[..n].CopyTo(bPrime);
+        if (hueDegrees.IsEmpty) return;
         for (int i = 0; i < n; i++)
         {
-            double ra = Math.Sign(q[3 * i]) * 400 * t[3 * i] / (27.13 + t[3 * i]) + 0.1;
-            double ga = Math.Sign(q[3 * i + 1]) * 400 * t[3 * i + 1] / (27.13 + t[3 * i + 1]) + 0.1;
-            double ba = Math.Sign(q[3 * i + 2]) * 400 * t[3 * i + 2] / (27.13 + t[3 * i + 2]) + 0.1;
-            double a = ra - 12 * ga / 11 + ba / 11;
-            double b = (ra + ga - 2 * ba) / 9;
-            double rr = Math.Sqrt(a * a + b * b);
-            double cosH = rr > 0 ? a / rr : 1, sinH = rr > 0 ? b / rr : 0;
-            double et = 0.25 * (cosH * Cos2 - sinH * Sin2 + 3.8);
-            ach[i] = (2 * ra + ga + ba / 20 - 0.305) * _nbb / _aw;
-            tc[i] = 50000.0 / 13 * _nc * _ncb * et * rr / (ra + ga + 21 * ba / 20);
-            av[i] = cosH; bv[i] = sinH;
-            if (!hueDegrees.IsEmpty) { double h = Math.Atan2(b, a) * 180 / Math.PI; hueDegrees[i] = h < 0 ? h + 360 : h; }
-        }
-        PowInPlace(ach, _c * _z); // A/A_w → J/100
-        PowInPlace(tc, 0.9);
-        for (int i = 0; i < n; i++)
-        {
-            double j = 100 * ach[i];
-            double mColorfulness = tc[i] * Math.Sqrt(ach[i]) * _chromaFactor * _fl025;
-            jPrime[i] = 1.7 * j / (1 + 0.007 * j);
-            tc[i] = 1 + 0.0228 * mColorfulness;
-        }
-        System.Numerics.Tensors.TensorPrimitives.Log(tc, tc);
-        for (int i = 0; i < n; i++)
-        {
-            double mp = tc[i] / 0.0228;
-            aPrime[i] = mp * av[i];
-            bPrime[i] = mp * bv[i];
+            double h = Math.Atan2(hb[i], ha[i]) * 180 / Math.PI;
+            hueDegrees[i] = h < 0 ? h + 360 : h;
         }
     }
 
-    /// <summary>x^p for non-negative x as exp(p·ln x), with the vectorised Log and Exp of System.Numerics.Tensors.</summary>
-    private static void PowInPlace(Span<double> x, double p)
+    /// <summary>The post-adaptation non-linear compression of CIECAM02: sign(q)·400·t/(27.13 + t) + 0.1, t = (F_L|q|/100)^0.42.</summary>
+    private static Vector256<double> PostAdaptation(Vector256<double> q, Vector256<double> flOver100)
     {
-        System.Numerics.Tensors.TensorPrimitives.Log(x, x);
-        System.Numerics.Tensors.TensorPrimitives.Multiply(x, p, x);
-        System.Numerics.Tensors.TensorPrimitives.Exp(x, x);
+        var t = Vector256.Exp(Vector256.Create(0.42) * Vector256.Log(flOver100 * Vector256.Abs(q)));
+        return Vector256.CopySign(t * 400 / (t + Vector256.Create(27.13)), q) + Vector256.Create(0.1);
     }
 
     private (double R, double G, double B) Compressed(double x, double y, double z)

@@ -35,24 +35,77 @@ public static class FidelityIndex
     public static FidelityResult Compute(RegularSamples test, double cctKelvin)
     {
         ArgumentNullException.ThrowIfNull(test);
-        int step = test.StepNm == 5 ? 5 : 1;
-        int n = (LastNm - FirstNm) / step + 1;
+        return ComputeMany([test], [cctKelvin])[0];
+    }
+
+    /// <summary>
+    /// Computes Rf, Rg, Rf,i and the hue bins of many spectra at once: the same results as <see cref="Compute"/> on each
+    /// (within 1e-9; only the order of the floating-point sums differs), several times faster per spectrum, because the
+    /// 99 samples' weights are streamed once per four spectra (<see cref="SampleSums"/>). Give blocks of 8–32 spectra.
+    /// </summary>
+    /// <param name="tests">Test spectra, each on a whole-nm 1 nm or 5 nm grid.</param>
+    /// <param name="cctsKelvin">The CCT (2° observer) of each, K.</param>
+    /// <returns>One result per spectrum, in order.</returns>
+    /// <exception cref="ArgumentException">The lists differ in length.</exception>
+    public static FidelityResult[] ComputeMany(IReadOnlyList<RegularSamples> tests, IReadOnlyList<double> cctsKelvin)
+    {
+        ArgumentNullException.ThrowIfNull(tests);
+        ArgumentNullException.ThrowIfNull(cctsKelvin);
+        if (tests.Count != cctsKelvin.Count) throw new ArgumentException("One CCT per spectrum is needed.", nameof(cctsKelvin));
+        var results = new FidelityResult[tests.Count];
+        foreach (int step in (ReadOnlySpan<int>)[1, 5])
+        {
+            var members = new List<int>();
+            for (int i = 0; i < tests.Count; i++) if ((tests[i].StepNm == 5 ? 5 : 1) == step) members.Add(i);
+            if (members.Count == 0) continue;
+            int n = (LastNm - FirstNm) / step + 1;
+            var table = SampleSums.For(CieTables.Load(step == 5 ? "cfi_colour_evaluation_samples_5nm" : "cfi_colour_evaluation_samples_1nm"), Observer.Cie1964TenDegree, FirstNm, step, n);
+            var vectors = new double[members.Count][];
+            var references = new ReferenceIlluminant[members.Count];
+            for (int j = 0; j < members.Count; j++)
+            {
+                vectors[j] = OnGrid(tests[members[j]], step, n);
+                references[j] = ReferenceIlluminants.ForCie224(cctsKelvin[members[j]], FirstNm, step, n);
+            }
+            int rows = table.RowCount;
+            var testSums = new double[members.Count * rows];
+            var refSums = new double[members.Count * rows];
+            table.Compute(vectors, references, testSums, refSums);
+            for (int j = 0; j < members.Count; j++)
+                results[members[j]] = FromSums(testSums.AsSpan(j * rows, rows), refSums.AsSpan(j * rows, rows), references[j]);
+        }
+        return results;
+    }
+
+    /// <summary>The test spectrum on the 380–780 nm grid of the CES table (zero where it was not measured).</summary>
+    private static double[] OnGrid(RegularSamples test, int step, int n)
+    {
         var s = new double[n];
+        if (test.StepNm == step && (FirstNm - test.StartNm) % step == 0)
+        {
+            // Same step, aligned grids (the usual case): one copy of the overlap.
+            int first = Math.Max(0, (test.StartNm - FirstNm) / step), from = (FirstNm + first * step - test.StartNm) / step;
+            int length = Math.Min(n - first, test.Values.Length - from);
+            if (length > 0) test.Values.AsSpan(from, length).CopyTo(s.AsSpan(first, length));
+            return s;
+        }
         for (int k = 0; k < n; k++)
         {
             int w = FirstNm + k * step;
             int offset = w - test.StartNm;
             if (offset >= 0 && offset % test.StepNm == 0 && offset / test.StepNm < test.Values.Length) s[k] = test.Values[offset / test.StepNm];
         }
-        var reference = ReferenceIlluminants.ForCie224(cctKelvin, FirstNm, step, n);
-        var ces = CieTables.Load(step == 5 ? "cfi_colour_evaluation_samples_5nm" : "cfi_colour_evaluation_samples_1nm");
-        var cmf = Colorimeter.CmfWeights(Observer.Cie1964TenDegree, FirstNm, step, n);
-        var weights = SpectralWeights.ForSamples(ces, Observer.Cie1964TenDegree, FirstNm, step, n);
+        return s;
+    }
 
+    /// <summary>Rf, Rg and the hue bins from the white and sample sums under the test and its reference.</summary>
+    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> refSums, ReferenceIlluminant reference)
+    {
         Span<double> tJ = stackalloc double[SampleCount], tA = stackalloc double[SampleCount], tB = stackalloc double[SampleCount];
         Span<double> rJ = stackalloc double[SampleCount], rA = stackalloc double[SampleCount], rB = stackalloc double[SampleCount];
         Span<double> rH = stackalloc double[SampleCount];
-        Appearance(s, reference.Samples.Values, cmf, weights, tJ, tA, tB, rJ, rA, rB, rH);
+        Appearance(testSums, tJ, tA, tB, default);
+        Appearance(refSums, rJ, rA, rB, rH);
 
         var rfCes = new double[SampleCount];
         var de = new double[SampleCount];
@@ -103,23 +156,16 @@ public static class FidelityIndex
         return new FidelityResult(rf, rg, rfCes, bins, reference, cesBins);
     }
 
-    private static void Appearance(ReadOnlySpan<double> test, ReadOnlySpan<double> reference, SpectralWeights cmf, SpectralWeights w,
-        Span<double> tJ, Span<double> tA, Span<double> tB, Span<double> rJ, Span<double> rA, Span<double> rB, Span<double> rHue)
+    /// <summary>CAM02-UCS J′, a′, b′ (and hue) of the 99 samples from their sums and the white's (rows 0–2), Y_w = 100.</summary>
+    private static void Appearance(ReadOnlySpan<double> sums, Span<double> j, Span<double> a, Span<double> b, Span<double> hue)
     {
-        var (wt, wr) = SpectralSum.Tristimulus2(cmf.Weights[0], cmf.Weights[1], cmf.Weights[2], test, reference);
-        double xt = wt.X, yt = wt.Y, zt = wt.Z, xr = wr.X, yr = wr.Y, zr = wr.Z;
-        double kt = 100 / yt, kr = 100 / yr;
-        var camT = new Ciecam02(kt * xt, 100, kt * zt, ViewingConditions.Cie224);
-        var camR = new Ciecam02(kr * xr, 100, kr * zr, ViewingConditions.Cie224);
-        Span<double> txs = stackalloc double[SampleCount], tys = stackalloc double[SampleCount], tzs = stackalloc double[SampleCount];
-        Span<double> rxs = stackalloc double[SampleCount], rys = stackalloc double[SampleCount], rzs = stackalloc double[SampleCount];
+        double k = 100 / sums[1];
+        var cam = new Ciecam02(k * sums[0], 100, k * sums[2], ViewingConditions.Cie224);
+        Span<double> xs = stackalloc double[SampleCount], ys = stackalloc double[SampleCount], zs = stackalloc double[SampleCount];
         for (int i = 0; i < SampleCount; i++)
         {
-            var (t, r) = SpectralSum.Tristimulus2(w.Weights[3 * i], w.Weights[3 * i + 1], w.Weights[3 * i + 2], test, reference);
-            txs[i] = kt * t.X; tys[i] = kt * t.Y; tzs[i] = kt * t.Z;
-            rxs[i] = kr * r.X; rys[i] = kr * r.Y; rzs[i] = kr * r.Z;
+            xs[i] = k * sums[3 + 3 * i]; ys[i] = k * sums[4 + 3 * i]; zs[i] = k * sums[5 + 3 * i];
         }
-        camT.ForwardUcs(txs, tys, tzs, tJ, tA, tB, default);
-        camR.ForwardUcs(rxs, rys, rzs, rJ, rA, rB, rHue);
+        cam.ForwardUcs(xs, ys, zs, j, a, b, hue);
     }
 }

@@ -38,20 +38,29 @@ public static class ReferenceIlluminants
     /// <returns>The spectrum (S0 scale, ≈100 at 560 nm).</returns>
     public static double[] Daylight(double cctKelvin, int startNm, int stepNm, int count)
     {
-        var (x, y) = DaylightChromaticity(cctKelvin);
-        double m = 0.0241 + 0.2562 * x - 0.7341 * y;
-        double m1 = Math.Round((-1.3515 - 1.7703 * x + 5.9114 * y) / m, 3, MidpointRounding.AwayFromZero);
-        double m2 = Math.Round((0.0300 - 31.4424 * x + 30.0717 * y) / m, 3, MidpointRounding.AwayFromZero);
+        var (m1, m2) = DaylightFactors(cctKelvin);
         var (s0, s1, s2) = DaylightComponentsOn(startNm, stepNm, count);
         var result = new double[count];
         for (int k = 0; k < count; k++) result[k] = s0[k] + m1 * s1[k] + m2 * s2[k];
         return result;
     }
 
+    /// <summary>The factors M1 and M2 of CIE daylight at a CCT, rounded to three decimals as CIE 15 does.</summary>
+    /// <param name="cctKelvin">CCT, K.</param>
+    /// <returns>(M1, M2).</returns>
+    internal static (double M1, double M2) DaylightFactors(double cctKelvin)
+    {
+        var (x, y) = DaylightChromaticity(cctKelvin);
+        double m = 0.0241 + 0.2562 * x - 0.7341 * y;
+        double m1 = Math.Round((-1.3515 - 1.7703 * x + 5.9114 * y) / m, 3, MidpointRounding.AwayFromZero);
+        double m2 = Math.Round((0.0300 - 31.4424 * x + 30.0717 * y) / m, 3, MidpointRounding.AwayFromZero);
+        return (m1, m2);
+    }
+
     private static readonly System.Collections.Concurrent.ConcurrentDictionary<(int, int, int), (double[], double[], double[])> ComponentCache = new();
 
     /// <summary>S0, S1, S2 linearly interpolated onto a grid (0 outside 300–830 nm), computed once per grid.</summary>
-    private static (double[] S0, double[] S1, double[] S2) DaylightComponentsOn(int startNm, int stepNm, int count) =>
+    internal static (double[] S0, double[] S1, double[] S2) DaylightComponentsOn(int startNm, int stepNm, int count) =>
         ComponentCache.GetOrAdd((startNm, stepNm, count), _ =>
         {
             var comp = CieTables.DaylightComponents;
@@ -101,11 +110,16 @@ public static class ReferenceIlluminants
         var (a, p5) = PlanckFactors(startNm, stepNm, count);
         double norm = Planck.Expm1(PlanckConstants.Cie15.C2 / (560e-9 * temperatureKelvin));
         double invT = 1.0 / temperatureKelvin;
+        // exp(x) − 1 for the whole grid with the vectorised exponential; Planck.Expm1's series below |x| = 1e-5, and 0
+        // where exp would overflow, exactly as Planck.Expm1 does point by point.
         var result = new double[count];
+        System.Numerics.Tensors.TensorPrimitives.Multiply(a, invT, result);
+        Span<double> e = count <= 1024 ? stackalloc double[count] : new double[count];
+        System.Numerics.Tensors.TensorPrimitives.Exp(result, e);
         for (int k = 0; k < count; k++)
         {
-            double x = a[k] * invT;
-            result[k] = x > 700 ? 0 : p5[k] * norm / Planck.Expm1(x);
+            double x = result[k];
+            result[k] = x > 700 ? 0 : p5[k] * norm / (x < 1e-5 ? Planck.Expm1(x) : e[k] - 1.0);
         }
         return result;
     }

@@ -1,0 +1,92 @@
+using System.Collections.Concurrent;
+using Lumen.Cie;
+using Lumen.Colorimetry;
+
+namespace Lumen.Rendition;
+
+/// <summary>
+/// The tristimulus sums a rendition index needs, for many spectra in one pass: the white (the observer's x̄, ȳ, z̄)
+/// and each sample's (reflectance × x̄, ȳ, z̄), under each test spectrum and under its reference.
+/// </summary>
+/// <remarks>
+/// Weight rows: 3 for the white, then 3 per sample, all × Δλ (<see cref="SpectralWeights"/>); the sums run through
+/// <see cref="SpectralSum.Many"/>. A CIE daylight reference is S0 + M1·S1 + M2·S2, so its sums are
+/// Σw·S0 + M1·Σw·S1 + M2·Σw·S2 with the three component sums computed once per grid: the same value as summing the
+/// daylight spectrum, in another order (rounding of order 1e-15 relative). Planckian and blended references are summed
+/// like the test spectra, in the same pass.
+/// </remarks>
+internal sealed class SampleSums
+{
+    private static readonly ConcurrentDictionary<(string, Observer, int, int, int), SampleSums> Cache = new();
+    private readonly double[] _daylight; // rows × 3: sums of S0, S1, S2
+
+    private SampleSums(double[][] rows, int startNm, int stepNm, int count)
+    {
+        Rows = rows;
+        var (s0, s1, s2) = ReferenceIlluminants.DaylightComponentsOn(startNm, stepNm, count);
+        _daylight = new double[3 * rows.Length];
+        SpectralSum.Many(rows, [s0, s1, s2], _daylight);
+    }
+
+    /// <summary>Weight rows: x̄, ȳ, z̄ of the white, then x̄, ȳ, z̄ of each sample, each × Δλ.</summary>
+    public double[][] Rows { get; }
+
+    /// <summary>Number of rows (3 + 3 × samples).</summary>
+    public int RowCount => Rows.Length;
+
+    /// <summary>Gets (or builds and caches) the rows for a sample table and observer on a grid.</summary>
+    /// <param name="samples">Spectral radiance factors of the samples.</param>
+    /// <param name="observer">Observer.</param>
+    /// <param name="startNm">Grid start, whole nm.</param>
+    /// <param name="stepNm">Grid step, whole nm.</param>
+    /// <param name="count">Grid size.</param>
+    /// <returns>The cached sums table.</returns>
+    public static SampleSums For(CieTable samples, Observer observer, int startNm, int stepNm, int count) =>
+        Cache.GetOrAdd((samples.Name, observer, startNm, stepNm, count), _ =>
+        {
+            var cmf = Colorimeter.CmfWeights(observer, startNm, stepNm, count);
+            var w = SpectralWeights.ForSamples(samples, observer, startNm, stepNm, count);
+            var rows = new double[3 + w.Weights.Length][];
+            rows[0] = cmf.Weights[0]; rows[1] = cmf.Weights[1]; rows[2] = cmf.Weights[2];
+            for (int i = 0; i < w.Weights.Length; i++) rows[3 + i] = w.Weights[i];
+            return new SampleSums(rows, startNm, stepNm, count);
+        });
+
+    /// <summary>
+    /// The sums of each test spectrum and of its reference (all on this table's grid), in one pass over the weights.
+    /// </summary>
+    /// <param name="tests">Test spectra.</param>
+    /// <param name="references">The reference of each test spectrum.</param>
+    /// <param name="testSums">Output, tests × <see cref="RowCount"/>.</param>
+    /// <param name="referenceSums">Output, tests × <see cref="RowCount"/>.</param>
+    public void Compute(IReadOnlyList<double[]> tests, IReadOnlyList<ReferenceIlluminant> references, Span<double> testSums, Span<double> referenceSums)
+    {
+        ArgumentNullException.ThrowIfNull(tests);
+        ArgumentNullException.ThrowIfNull(references);
+        if (references.Count != tests.Count) throw new ArgumentException("One reference per test spectrum is needed.", nameof(references));
+        int rows = RowCount;
+        var vectors = new List<double[]>(2 * tests.Count);
+        vectors.AddRange(tests);
+        foreach (var r in references)
+            if (r.Kind != ReferenceKind.CieDaylight) vectors.Add(r.Samples.Values);
+        var rented = System.Buffers.ArrayPool<double>.Shared.Rent(vectors.Count * rows);
+        try { Split(rented.AsSpan(0, vectors.Count * rows), tests.Count, vectors, references, testSums, referenceSums); }
+        finally { System.Buffers.ArrayPool<double>.Shared.Return(rented); }
+    }
+
+    /// <summary>Sums every vector (tests first, then the non-daylight references) and hands each out.</summary>
+    private void Split(Span<double> all, int count, List<double[]> vectors, IReadOnlyList<ReferenceIlluminant> references, Span<double> testSums, Span<double> referenceSums)
+    {
+        int rows = RowCount;
+        SpectralSum.Many(Rows, vectors, all);
+        all[..(count * rows)].CopyTo(testSums);
+        int next = count;
+        for (int i = 0; i < count; i++)
+        {
+            var target = referenceSums.Slice(i * rows, rows);
+            if (references[i].Kind != ReferenceKind.CieDaylight) { all.Slice(next++ * rows, rows).CopyTo(target); continue; }
+            var (m1, m2) = ReferenceIlluminants.DaylightFactors(references[i].CctKelvin);
+            for (int r = 0; r < rows; r++) target[r] = _daylight[r] + m1 * _daylight[rows + r] + m2 * _daylight[2 * rows + r];
+        }
+    }
+}

@@ -1,0 +1,322 @@
+using Lumen.Analysis;
+using Lumen.Blackbody;
+using Lumen.Cie;
+using Lumen.Colorimetry;
+using Lumen.Rendition;
+using Lumen.Spectra;
+using Lumen.Temperature;
+using Xunit;
+
+namespace Lumen.Tests;
+
+/// <summary>
+/// Issue 16: the blocked rendition kernel (many spectra per pass over the sample weights, daylight references from
+/// tabulated component sums, CIECAM02 four stimuli at a time) equals the unblocked computation, one spectrum at a
+/// time with per-sample sums and the scalar CIECAM02, on every output within 1e-9. Regression checks of the fast
+/// path against a plain one (both ours); the published anchors of Ra and Rf are in RenditionTests.
+/// </summary>
+public class BlockedRenditionTests
+{
+    /// <summary>Agreement asked by issue 16: 1e-9 on every output (absolute on the 0–100 scales, relative elsewhere).</summary>
+    private const double Tolerance = 1e-9;
+
+    private static void Close(double expected, double actual, string what)
+    {
+        if (double.IsNaN(expected)) { Assert.True(double.IsNaN(actual), $"{what}: expected NaN, got {actual}"); return; }
+        Assert.True(Math.Abs(expected - actual) <= Tolerance * Math.Max(1, Math.Abs(expected)), $"{what}: {expected:R} vs {actual:R}");
+    }
+
+    /// <summary>
+    /// Random smooth spectra around Planckian radiators from 1800 K to 16000 K (so every reference kind occurs:
+    /// Planckian, the CIE 224 blend, CIE daylight), each modulated by random Gaussian bumps, on 1 nm or 5 nm grids,
+    /// some starting above or ending below 380–780 nm.
+    /// </summary>
+    internal static List<(RegularSamples Samples, double Cct, Spectrum Spectrum)> RandomSpectra(int count, int seed)
+    {
+        var rng = new Random(seed);
+        var list = new List<(RegularSamples, double, Spectrum)>();
+        while (list.Count < count)
+        {
+            int step = rng.Next(2) == 0 ? 1 : 5;
+            int start = rng.Next(4) == 0 ? 400 : 360, end = rng.Next(4) == 0 ? 760 : 830;
+            var grid = Enumerable.Range(0, (end - start) / step + 1).Select(k => (double)(start + k * step)).ToArray();
+            double t = 1800 * Math.Pow(16000 / 1800.0, rng.NextDouble());
+            var bumps = Enumerable.Range(0, 4).Select(_ => (Centre: 400 + 350 * rng.NextDouble(), Width: 10 + 60 * rng.NextDouble(), Height: 0.6 * rng.NextDouble())).ToArray();
+            var values = grid.Select(w => Planck.SpectralRadianceNm(w, t, PlanckConstants.Cie15) * (1 + bumps.Sum(b => b.Height * Math.Exp(-Math.Pow((w - b.Centre) / b.Width, 2))))).ToArray();
+            var spectrum = new Spectrum(grid, values, SpectralUnit.Relative, $"random {list.Count}", SpectrumOrigin.Generated("test"));
+            var samples = Resampler.ForCieSums(spectrum);
+            double cct = CctSolver.Solve(Chromaticity.FromXyz(Colorimeter.RawSums(samples, Observer.Cie1931TwoDegree))).CctKelvin;
+            if (cct is < 1000 or > 25000) continue;
+            list.Add((samples, cct, spectrum));
+        }
+        return list;
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(3)]
+    [InlineData(8)]
+    [InlineData(13)]
+    [InlineData(32)]
+    public void Blocked_fidelity_equals_the_unblocked_computation_on_every_output(int blockSize)
+    {
+        var set = RandomSpectra(37, 1600 + blockSize); // 37 is divided by none of the block sizes above 1
+        Assert.Contains(set, s => s.Cct < 4000);
+        Assert.Contains(set, s => s.Cct > 5000);
+        for (int from = 0; from < set.Count; from += blockSize)
+        {
+            var block = set.Skip(from).Take(blockSize).ToList();
+            var results = FidelityIndex.ComputeMany(block.Select(b => b.Samples).ToList(), block.Select(b => b.Cct).ToList());
+            Assert.Equal(block.Count, results.Length);
+            for (int i = 0; i < block.Count; i++)
+            {
+                var expected = UnblockedRendition.Fidelity(block[i].Samples, block[i].Cct);
+                var actual = results[i];
+                string id = $"spectrum {from + i} ({block[i].Cct:0} K, step {block[i].Samples.StepNm})";
+                Close(expected.Rf, actual.Rf, id + " Rf");
+                Close(expected.Rg, actual.Rg, id + " Rg");
+                for (int k = 0; k < 99; k++) Close(expected.RfCes[k], actual.RfCes[k], $"{id} Rf,CES{k + 1}");
+                Assert.Equal(expected.CesBins, actual.CesBins);
+                for (int j = 0; j < 16; j++)
+                {
+                    var (e, a) = (expected.HueBins[j], actual.HueBins[j]);
+                    Assert.Equal(e.SampleCount, a.SampleCount);
+                    Close(e.Rf, a.Rf, $"{id} Rf,h{j + 1}");
+                    Close(e.Rcs, a.Rcs, $"{id} Rcs,h{j + 1}");
+                    Close(e.Rhs, a.Rhs, $"{id} Rhs,h{j + 1}");
+                    Close(e.ReferenceA, a.ReferenceA, $"{id} a'ref,h{j + 1}");
+                    Close(e.TestB, a.TestB, $"{id} b'test,h{j + 1}");
+                }
+                Assert.Equal(expected.Reference.Kind, actual.Reference.Kind);
+            }
+        }
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(5)]
+    [InlineData(16)]
+    public void Blocked_cri_equals_the_unblocked_computation_on_every_output(int blockSize)
+    {
+        var set = RandomSpectra(37, 1300 + blockSize);
+        for (int from = 0; from < set.Count; from += blockSize)
+        {
+            var block = set.Skip(from).Take(blockSize).ToList();
+            var results = ColorRenderingIndex.ComputeMany(block.Select(b => b.Samples).ToList(), block.Select(b => b.Cct).ToList());
+            for (int i = 0; i < block.Count; i++)
+            {
+                var expected = UnblockedRendition.Cri(block[i].Samples, block[i].Cct);
+                string id = $"spectrum {from + i} ({block[i].Cct:0} K)";
+                Close(expected.Ra, results[i].Ra, id + " Ra");
+                Close(expected.Dc, results[i].Dc, id + " DC");
+                for (int k = 0; k < 14; k++) Close(expected.R[k], results[i].R[k], $"{id} R{k + 1}");
+            }
+        }
+    }
+
+    [Fact]
+    public void A_single_spectrum_gives_the_same_result_alone_and_in_a_block()
+    {
+        var set = RandomSpectra(9, 77);
+        var many = FidelityIndex.ComputeMany(set.Select(s => s.Samples).ToList(), set.Select(s => s.Cct).ToList());
+        var cri = ColorRenderingIndex.ComputeMany(set.Select(s => s.Samples).ToList(), set.Select(s => s.Cct).ToList());
+        for (int i = 0; i < set.Count; i++)
+        {
+            Close(FidelityIndex.Compute(set[i].Samples, set[i].Cct).Rf, many[i].Rf, $"Rf {i}");
+            Close(FidelityIndex.Compute(set[i].Samples, set[i].Cct).Rg, many[i].Rg, $"Rg {i}");
+            Close(ColorRenderingIndex.Compute(set[i].Samples, set[i].Cct).R[8], cri[i].R[8], $"R9 {i}");
+        }
+    }
+
+    [Fact]
+    public void Assessing_a_block_equals_assessing_each_spectrum_alone_on_every_result_field()
+    {
+        var set = RandomSpectra(21, 4242);
+        var spectra = set.Select(s => s.Spectrum).ToList();
+        var many = Assessor.AssessMany(spectra);
+        for (int i = 0; i < spectra.Count; i++)
+        {
+            var one = Assessor.Assess(spectra[i]);
+            Assert.Equal(one.Warnings, many[i].Warnings);
+            foreach (var path in ResultFields.Paths)
+            {
+                var (e, a) = (ResultFields.Get(one, path), ResultFields.Get(many[i], path));
+                Assert.Equal(e.HasValue, a.HasValue);
+                if (e is { } ev && a is { } av) Close(ev, av, $"{spectra[i].Name} {path}");
+            }
+        }
+    }
+
+    [Fact]
+    public void Blocked_sums_equal_scalar_dot_products_for_any_count_and_length()
+    {
+        var rng = new Random(16);
+        foreach (int n in new[] { 1, 3, 4, 5, 17, 81, 401 })
+            foreach (int vectors in new[] { 1, 2, 3, 4, 5, 7, 9 })
+            {
+                double[] R() => Enumerable.Range(0, n).Select(_ => rng.NextDouble() - 0.2).ToArray();
+                var weights = Enumerable.Range(0, 6).Select(_ => R()).ToArray();
+                var spectra = Enumerable.Range(0, vectors).Select(_ => R()).ToArray();
+                var result = new double[vectors * 6];
+                SpectralSum.Many(weights, spectra, result);
+                for (int v = 0; v < vectors; v++)
+                    for (int r = 0; r < 6; r++)
+                    {
+                        double expected = SpectralSum.DotScalar(spectra[v], weights[r]);
+                        Assert.True(Math.Abs(expected - result[v * 6 + r]) <= 1e-13 * Math.Max(1, Math.Abs(expected)), $"n {n}, vector {v}, row {r}");
+                    }
+            }
+    }
+
+    [Fact]
+    public void Blocked_sums_refuse_mismatched_shapes()
+    {
+        var w = new[] { new double[4], new double[4], new double[4] };
+        Assert.Throws<ArgumentException>(() => SpectralSum.Many(w, [new double[5]], new double[3]));
+        Assert.Throws<ArgumentException>(() => SpectralSum.Many(w[..2], [new double[4]], new double[3]));
+        Assert.Throws<ArgumentException>(() => SpectralSum.Many(w, [new double[4], new double[4]], new double[5]));
+        Assert.Throws<ArgumentException>(() => FidelityIndex.ComputeMany([], [3000.0]));
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    [InlineData(5)]
+    [InlineData(8)]
+    [InlineData(99)]
+    public void Vectorised_cam02ucs_equals_the_scalar_model_for_any_count(int n)
+    {
+        var cam = new Ciecam02(101.2, 100, 64.3, ViewingConditions.Cie224);
+        var rng = new Random(n);
+        var x = Enumerable.Range(0, n).Select(_ => 0.5 + 90 * rng.NextDouble()).ToArray();
+        var y = Enumerable.Range(0, n).Select(_ => 0.5 + 90 * rng.NextDouble()).ToArray();
+        var z = Enumerable.Range(0, n).Select(_ => 0.5 + 90 * rng.NextDouble()).ToArray();
+        double[] j = new double[n], a = new double[n], b = new double[n], h = new double[n];
+        cam.ForwardUcs(x, y, z, j, a, b, h);
+        for (int i = 0; i < n; i++)
+        {
+            var c = cam.Forward(x[i], y[i], z[i]);
+            var (jj, aa, bb) = c.ToUcs();
+            Close(jj, j[i], $"J' {i}");
+            Close(aa, a[i], $"a' {i}");
+            Close(bb, b[i], $"b' {i}");
+            Close(c.HueDegrees, h[i], $"h {i}");
+        }
+    }
+}
+
+/// <summary>
+/// The unblocked rendition computation kept as the reference for the blocked kernel (issue 16): one spectrum at a time,
+/// each sample's tristimulus values by its own sums (<see cref="SpectralSum.Tristimulus2"/>), the reference spectrum
+/// summed directly (no daylight tabulation) and the scalar CIECAM02 (<see cref="Ciecam02.Forward"/>, then
+/// <see cref="Cam02.ToUcs"/>). The steps are those of docs/methods/cri.md and docs/methods/cie224-tm30.md.
+/// </summary>
+internal static class UnblockedRendition
+{
+    private const int FirstNm = 380, LastNm = 780, SampleCount = 99;
+
+    public static FidelityResult Fidelity(RegularSamples test, double cct)
+    {
+        int step = test.StepNm == 5 ? 5 : 1;
+        int n = (LastNm - FirstNm) / step + 1;
+        var s = new double[n];
+        for (int k = 0; k < n; k++)
+        {
+            int offset = FirstNm + k * step - test.StartNm;
+            if (offset >= 0 && offset % test.StepNm == 0 && offset / test.StepNm < test.Values.Length) s[k] = test.Values[offset / test.StepNm];
+        }
+        var reference = ReferenceIlluminants.ForCie224(cct, FirstNm, step, n);
+        var ces = step == 5 ? CieTables.ColorEvaluationSamples5Nm : CieTables.ColorEvaluationSamples1Nm;
+        var cmf = Colorimeter.CmfWeights(Observer.Cie1964TenDegree, FirstNm, step, n);
+        var w = SpectralWeights.ForSamples(ces, Observer.Cie1964TenDegree, FirstNm, step, n);
+        var (wt, wr) = SpectralSum.Tristimulus2(cmf.Weights[0], cmf.Weights[1], cmf.Weights[2], s, reference.Samples.Values);
+        double kt = 100 / wt.Y, kr = 100 / wr.Y;
+        var camT = new Ciecam02(kt * wt.X, 100, kt * wt.Z, ViewingConditions.Cie224);
+        var camR = new Ciecam02(kr * wr.X, 100, kr * wr.Z, ViewingConditions.Cie224);
+        var t = new (double J, double A, double B)[SampleCount];
+        var r = new (double J, double A, double B)[SampleCount];
+        var hue = new double[SampleCount];
+        for (int i = 0; i < SampleCount; i++)
+        {
+            var (st, sr) = SpectralSum.Tristimulus2(w.Weights[3 * i], w.Weights[3 * i + 1], w.Weights[3 * i + 2], s, reference.Samples.Values);
+            t[i] = camT.Forward(kt * st.X, kt * st.Y, kt * st.Z).ToUcs();
+            var cr = camR.Forward(kr * sr.X, kr * sr.Y, kr * sr.Z);
+            r[i] = cr.ToUcs();
+            hue[i] = cr.HueDegrees;
+        }
+        var rfCes = new double[SampleCount];
+        var de = new double[SampleCount];
+        double sum = 0;
+        for (int i = 0; i < SampleCount; i++)
+        {
+            de[i] = Math.Sqrt(Math.Pow(t[i].J - r[i].J, 2) + Math.Pow(t[i].A - r[i].A, 2) + Math.Pow(t[i].B - r[i].B, 2));
+            rfCes[i] = FidelityIndex.ToScale(de[i]);
+            sum += de[i];
+        }
+        var count = new int[16]; var sta = new double[16]; var stb = new double[16]; var sra = new double[16]; var srb = new double[16]; var sde = new double[16];
+        var cesBins = new int[SampleCount];
+        for (int i = 0; i < SampleCount; i++)
+        {
+            int j = Math.Min(15, (int)Math.Floor(hue[i] / 22.5));
+            cesBins[i] = j + 1;
+            count[j]++; sta[j] += t[i].A; stb[j] += t[i].B; sra[j] += r[i].A; srb[j] += r[i].B; sde[j] += de[i];
+        }
+        double[] ta = new double[16], tb = new double[16], ra = new double[16], rb = new double[16];
+        for (int j = 0; j < 16; j++)
+        {
+            int c = Math.Max(count[j], 1);
+            ta[j] = sta[j] / c; tb[j] = stb[j] / c; ra[j] = sra[j] / c; rb[j] = srb[j] / c;
+        }
+        double areaT = 0, areaR = 0;
+        for (int j = 0; j < 16; j++)
+        {
+            int nj = (j + 1) % 16;
+            areaT += ta[j] * tb[nj] - ta[nj] * tb[j];
+            areaR += ra[j] * rb[nj] - ra[nj] * rb[j];
+        }
+        var bins = new HueBin[16];
+        for (int j = 0; j < 16; j++)
+        {
+            double theta = (j + 0.5) * 22.5 * Math.PI / 180;
+            double dA = ta[j] - ra[j], dB = tb[j] - rb[j], chroma = Math.Sqrt(ra[j] * ra[j] + rb[j] * rb[j]);
+            bool empty = count[j] == 0;
+            bins[j] = new HueBin(j + 1, count[j], empty ? double.NaN : FidelityIndex.ToScale(sde[j] / count[j]),
+                empty ? double.NaN : (dA * Math.Cos(theta) + dB * Math.Sin(theta)) / chroma,
+                empty ? double.NaN : (-dA * Math.Sin(theta) + dB * Math.Cos(theta)) / chroma, ra[j], rb[j], ta[j], tb[j]);
+        }
+        return new FidelityResult(FidelityIndex.ToScale(sum / SampleCount), 100 * areaT / areaR, rfCes, bins, reference, cesBins);
+    }
+
+    public static CriResult Cri(RegularSamples test, double cct)
+    {
+        int n = test.Values.Length;
+        var reference = ReferenceIlluminants.ForCie13_3(cct, test.StartNm, test.StepNm, n);
+        var tcs5 = CieTables.CriTestSamples;
+        var tcs = test.StepNm == 1 ? tcs5.SpragueToOneNm() : tcs5;
+        var cmf = Colorimeter.CmfWeights(Observer.Cie1931TwoDegree, test.StartNm, test.StepNm, n);
+        var w = SpectralWeights.ForSamples(tcs, Observer.Cie1931TwoDegree, test.StartNm, test.StepNm, n);
+        (double U, double V) Uv(double x, double y, double z) { double d = x + 15 * y + 3 * z; return (4 * x / d, 6 * y / d); }
+        double C(double u, double v) => (4 - u - 10 * v) / v;
+        double D(double u, double v) => (1.708 * v + 0.404 - 1.481 * u) / v;
+        var (wk, wr) = SpectralSum.Tristimulus2(cmf.Weights[0], cmf.Weights[1], cmf.Weights[2], test.Values, reference.Samples.Values);
+        var (uk, vk) = Uv(wk.X, wk.Y, wk.Z);
+        var (ur, vr) = Uv(wr.X, wr.Y, wr.Z);
+        double kk = 100 / wk.Y, kr = 100 / wr.Y;
+        double ck = C(uk, vk), dk = D(uk, vk), cr = C(ur, vr), dr = D(ur, vr);
+        var ri = new double[14];
+        for (int i = 0; i < 14; i++)
+        {
+            var (st, sr) = SpectralSum.Tristimulus2(w.Weights[3 * i], w.Weights[3 * i + 1], w.Weights[3 * i + 2], test.Values, reference.Samples.Values);
+            var (uki, vki) = Uv(kk * st.X, kk * st.Y, kk * st.Z);
+            var (uri, vri) = Uv(kr * sr.X, kr * sr.Y, kr * sr.Z);
+            double cki = C(uki, vki), dki = D(uki, vki);
+            double den = 16.518 + 1.481 * (cr / ck) * cki - (dr / dk) * dki;
+            double uA = (10.872 + 0.404 * (cr / ck) * cki - 4 * (dr / dk) * dki) / den, vA = 5.520 / den;
+            double wt = 25 * Math.Cbrt(kk * st.Y) - 17, wre = 25 * Math.Cbrt(kr * sr.Y) - 17;
+            double ut = 13 * wt * (uA - ur), vt = 13 * wt * (vA - vr), uRef = 13 * wre * (uri - ur), vRef = 13 * wre * (vri - vr);
+            ri[i] = 100 - 4.6 * Math.Sqrt((uRef - ut) * (uRef - ut) + (vRef - vt) * (vRef - vt) + (wre - wt) * (wre - wt));
+        }
+        return new CriResult(ri.Take(8).Average(), ri, reference, Math.Sqrt((uk - ur) * (uk - ur) + (vk - vr) * (vk - vr)));
+    }
+}
