@@ -96,9 +96,9 @@ internal sealed class Ciecam02
         if (y.Length != n || z.Length != n || jPrime.Length < n || aPrime.Length < n || bPrime.Length < n || (!hueDegrees.IsEmpty && hueDegrees.Length < n))
             throw new ArgumentException("All spans must hold one value per stimulus.", nameof(x));
         if (n == 0) return;
-        // Four stimuli per step (Vector256, with vectorised log and exp); the inputs are copied into buffers padded to a
-        // multiple of four with the last stimulus, whose extra results are not copied out.
-        int padded = (n + 3) & ~3;
+        // Eight (AVX-512) or four stimuli per step, with vectorised log and exp; the inputs are copied into buffers padded
+        // to a multiple of eight with the last stimulus, whose extra results are not copied out.
+        int padded = (n + 7) & ~7;
         const int Buffers = 8;
         Span<double> buffer = padded * Buffers <= 2048 ? stackalloc double[padded * Buffers] : new double[padded * Buffers];
         Span<double> bx = buffer[..padded], by = buffer.Slice(padded, padded), bz = buffer.Slice(2 * padded, padded);
@@ -106,40 +106,10 @@ internal sealed class Ciecam02
         Span<double> ha = buffer.Slice(6 * padded, padded), hb = buffer.Slice(7 * padded, padded);
         x.CopyTo(bx); y.CopyTo(by); z.CopyTo(bz);
         bx[n..].Fill(x[n - 1]); by[n..].Fill(y[n - 1]); bz[n..].Fill(z[n - 1]);
-        var m = _toCones;
-        var m00 = Vector256.Create(m[0]); var m01 = Vector256.Create(m[1]); var m02 = Vector256.Create(m[2]);
-        var m10 = Vector256.Create(m[3]); var m11 = Vector256.Create(m[4]); var m12 = Vector256.Create(m[5]);
-        var m20 = Vector256.Create(m[6]); var m21 = Vector256.Create(m[7]); var m22 = Vector256.Create(m[8]);
-        var fl = Vector256.Create(_flOver100);
-        var chromaScale = Vector256.Create(50000.0 / 13 * _nc * _ncb);
-        var achromaticScale = Vector256.Create(_nbb / _aw);
-        var jExponent = Vector256.Create(_c * _z);
-        var mScale = Vector256.Create(_chromaFactor * _fl025);
-        for (int i = 0; i < padded; i += 4)
-        {
-            var vx = Vector256.Create(bx.Slice(i, 4)); var vy = Vector256.Create(by.Slice(i, 4)); var vz = Vector256.Create(bz.Slice(i, 4));
-            var ra = PostAdaptation(m00 * vx + m01 * vy + m02 * vz, fl);
-            var ga = PostAdaptation(m10 * vx + m11 * vy + m12 * vz, fl);
-            var ba = PostAdaptation(m20 * vx + m21 * vy + m22 * vz, fl);
-            var a = ra - ga * (12.0 / 11) + ba * (1.0 / 11);
-            var b = (ra + ga - ba * 2) * (1.0 / 9);
-            var rr = Vector256.Sqrt(a * a + b * b);
-            var positive = Vector256.GreaterThan(rr, Vector256<double>.Zero);
-            var cosH = Vector256.ConditionalSelect(positive, a / rr, Vector256<double>.One);
-            var sinH = Vector256.ConditionalSelect(positive, b / rr, Vector256<double>.Zero);
-            // e_t = ¼(cos(h + 2) + 3.8) with cos(h + 2) from cos h and sin h (no trigonometric call).
-            var et = (cosH * Cos2 - sinH * Sin2 + Vector256.Create(3.8)) * 0.25;
-            var ach = (ra * 2 + ga + ba * (1.0 / 20) - Vector256.Create(0.305)) * achromaticScale; // A / A_w
-            var t = chromaScale * et * rr / (ra + ga + ba * (21.0 / 20));
-            var jOver100 = Vector256.Exp(jExponent * Vector256.Log(ach));
-            var j = jOver100 * 100;
-            var colourfulness = Vector256.Exp(Vector256.Create(0.9) * Vector256.Log(t)) * Vector256.Sqrt(jOver100) * mScale;
-            var mp = Vector256.Log(Vector256<double>.One + colourfulness * 0.0228) * (1 / 0.0228);
-            (j * 1.7 / (Vector256<double>.One + j * 0.007)).CopyTo(oj.Slice(i, 4));
-            (mp * cosH).CopyTo(oa.Slice(i, 4));
-            (mp * sinH).CopyTo(ob.Slice(i, 4));
-            a.CopyTo(ha.Slice(i, 4)); b.CopyTo(hb.Slice(i, 4));
-        }
+        if (Vector512.IsHardwareAccelerated)
+            for (int i = 0; i < padded; i += 8) Step512(bx.Slice(i, 8), by.Slice(i, 8), bz.Slice(i, 8), oj.Slice(i, 8), oa.Slice(i, 8), ob.Slice(i, 8), ha.Slice(i, 8), hb.Slice(i, 8));
+        else
+            for (int i = 0; i < padded; i += 4) Step256(bx.Slice(i, 4), by.Slice(i, 4), bz.Slice(i, 4), oj.Slice(i, 4), oa.Slice(i, 4), ob.Slice(i, 4), ha.Slice(i, 4), hb.Slice(i, 4));
         oj[..n].CopyTo(jPrime); oa[..n].CopyTo(aPrime); ob[..n].CopyTo(bPrime);
         if (hueDegrees.IsEmpty) return;
         for (int i = 0; i < n; i++)
@@ -147,6 +117,73 @@ internal sealed class Ciecam02
             double h = Math.Atan2(hb[i], ha[i]) * 180 / Math.PI;
             hueDegrees[i] = h < 0 ? h + 360 : h;
         }
+    }
+
+    /// <summary>One step of <see cref="ForwardUcs"/> on 8 stimuli (Vector512); the same arithmetic as the other width.</summary>
+    private void Step512(ReadOnlySpan<double> x, ReadOnlySpan<double> y, ReadOnlySpan<double> z, Span<double> jPrime, Span<double> aPrime, Span<double> bPrime, Span<double> a, Span<double> b)
+    {
+        var m = _toCones;
+        var vx = Vector512.Create(x); var vy = Vector512.Create(y); var vz = Vector512.Create(z);
+        var fl = Vector512.Create(_flOver100);
+        var ra = PostAdaptation(Vector512.Create(m[0]) * vx + Vector512.Create(m[1]) * vy + Vector512.Create(m[2]) * vz, fl);
+        var ga = PostAdaptation(Vector512.Create(m[3]) * vx + Vector512.Create(m[4]) * vy + Vector512.Create(m[5]) * vz, fl);
+        var ba = PostAdaptation(Vector512.Create(m[6]) * vx + Vector512.Create(m[7]) * vy + Vector512.Create(m[8]) * vz, fl);
+        var va = ra - ga * (12.0 / 11) + ba * (1.0 / 11);
+        var vb = (ra + ga - ba * 2) * (1.0 / 9);
+        var rr = Vector512.Sqrt(va * va + vb * vb);
+        var positive = Vector512.GreaterThan(rr, Vector512<double>.Zero);
+        var cosH = Vector512.ConditionalSelect(positive, va / rr, Vector512<double>.One);
+        var sinH = Vector512.ConditionalSelect(positive, vb / rr, Vector512<double>.Zero);
+        // e_t = ¼(cos(h + 2) + 3.8) with cos(h + 2) from cos h and sin h (no trigonometric call).
+        var et = (cosH * Cos2 - sinH * Sin2 + Vector512.Create(3.8)) * 0.25;
+        var ach = (ra * 2 + ga + ba * (1.0 / 20) - Vector512.Create(0.305)) * (_nbb / _aw); // A / A_w
+        var t = Vector512.Create(50000.0 / 13 * _nc * _ncb) * et * rr / (ra + ga + ba * (21.0 / 20));
+        var logAch = Vector512.Log(ach);
+        var j = Vector512.Exp(Vector512.Create(_c * _z) * logAch) * 100; // J = 100·(A/A_w)^(cz)
+        // M = t^0.9·√(J/100)·(1.64 − 0.29^n)^0.73·F_L^0.25, with t^0.9·√(J/100) as one exponential.
+        var colourfulness = Vector512.Exp(Vector512.Create(0.9) * Vector512.Log(t) + Vector512.Create(0.5 * _c * _z) * logAch) * (_chromaFactor * _fl025);
+        var mp = Vector512.Log(Vector512<double>.One + colourfulness * 0.0228) * (1 / 0.0228);
+        (j * 1.7 / (Vector512<double>.One + j * 0.007)).CopyTo(jPrime);
+        (mp * cosH).CopyTo(aPrime);
+        (mp * sinH).CopyTo(bPrime);
+        va.CopyTo(a); vb.CopyTo(b);
+    }
+
+    /// <summary>The post-adaptation non-linear compression of CIECAM02: sign(q)·400·t/(27.13 + t) + 0.1, t = (F_L|q|/100)^0.42.</summary>
+    private static Vector512<double> PostAdaptation(Vector512<double> q, Vector512<double> flOver100)
+    {
+        var t = Vector512.Exp(Vector512.Create(0.42) * Vector512.Log(flOver100 * Vector512.Abs(q)));
+        return Vector512.CopySign(t * 400 / (t + Vector512.Create(27.13)), q) + Vector512.Create(0.1);
+    }
+
+    /// <summary>One step of <see cref="ForwardUcs"/> on 4 stimuli (Vector256); the same arithmetic as the other width.</summary>
+    private void Step256(ReadOnlySpan<double> x, ReadOnlySpan<double> y, ReadOnlySpan<double> z, Span<double> jPrime, Span<double> aPrime, Span<double> bPrime, Span<double> a, Span<double> b)
+    {
+        var m = _toCones;
+        var vx = Vector256.Create(x); var vy = Vector256.Create(y); var vz = Vector256.Create(z);
+        var fl = Vector256.Create(_flOver100);
+        var ra = PostAdaptation(Vector256.Create(m[0]) * vx + Vector256.Create(m[1]) * vy + Vector256.Create(m[2]) * vz, fl);
+        var ga = PostAdaptation(Vector256.Create(m[3]) * vx + Vector256.Create(m[4]) * vy + Vector256.Create(m[5]) * vz, fl);
+        var ba = PostAdaptation(Vector256.Create(m[6]) * vx + Vector256.Create(m[7]) * vy + Vector256.Create(m[8]) * vz, fl);
+        var va = ra - ga * (12.0 / 11) + ba * (1.0 / 11);
+        var vb = (ra + ga - ba * 2) * (1.0 / 9);
+        var rr = Vector256.Sqrt(va * va + vb * vb);
+        var positive = Vector256.GreaterThan(rr, Vector256<double>.Zero);
+        var cosH = Vector256.ConditionalSelect(positive, va / rr, Vector256<double>.One);
+        var sinH = Vector256.ConditionalSelect(positive, vb / rr, Vector256<double>.Zero);
+        // e_t = ¼(cos(h + 2) + 3.8) with cos(h + 2) from cos h and sin h (no trigonometric call).
+        var et = (cosH * Cos2 - sinH * Sin2 + Vector256.Create(3.8)) * 0.25;
+        var ach = (ra * 2 + ga + ba * (1.0 / 20) - Vector256.Create(0.305)) * (_nbb / _aw); // A / A_w
+        var t = Vector256.Create(50000.0 / 13 * _nc * _ncb) * et * rr / (ra + ga + ba * (21.0 / 20));
+        var logAch = Vector256.Log(ach);
+        var j = Vector256.Exp(Vector256.Create(_c * _z) * logAch) * 100; // J = 100·(A/A_w)^(cz)
+        // M = t^0.9·√(J/100)·(1.64 − 0.29^n)^0.73·F_L^0.25, with t^0.9·√(J/100) as one exponential.
+        var colourfulness = Vector256.Exp(Vector256.Create(0.9) * Vector256.Log(t) + Vector256.Create(0.5 * _c * _z) * logAch) * (_chromaFactor * _fl025);
+        var mp = Vector256.Log(Vector256<double>.One + colourfulness * 0.0228) * (1 / 0.0228);
+        (j * 1.7 / (Vector256<double>.One + j * 0.007)).CopyTo(jPrime);
+        (mp * cosH).CopyTo(aPrime);
+        (mp * sinH).CopyTo(bPrime);
+        va.CopyTo(a); vb.CopyTo(b);
     }
 
     /// <summary>The post-adaptation non-linear compression of CIECAM02: sign(q)·400·t/(27.13 + t) + 0.1, t = (F_L|q|/100)^0.42.</summary>

@@ -28,6 +28,17 @@ public static class FidelityIndex
     /// <returns>10·ln(exp((100 − 6.73·ΔE)/10) + 1).</returns>
     internal static double ToScale(double deltaE) => 10 * Math.Log(Math.Exp((100 - ScalingFactor * deltaE) / 10) + 1);
 
+    /// <summary><see cref="ToScale(double)"/> of many differences at once (vectorised exp and log).</summary>
+    private static void ToScale(ReadOnlySpan<double> deltaE, Span<double> scale)
+    {
+        System.Numerics.Tensors.TensorPrimitives.Multiply(deltaE, -ScalingFactor / 10, scale);
+        System.Numerics.Tensors.TensorPrimitives.Add(scale, 10.0, scale); // (100 − c_f·ΔE)/10
+        System.Numerics.Tensors.TensorPrimitives.Exp(scale, scale);
+        System.Numerics.Tensors.TensorPrimitives.Add(scale, 1.0, scale);
+        System.Numerics.Tensors.TensorPrimitives.Log(scale, scale);
+        System.Numerics.Tensors.TensorPrimitives.Multiply(scale, 10.0, scale);
+    }
+
     /// <summary>Computes Rf, Rg, Rf,i and the hue bins.</summary>
     /// <param name="test">Test spectrum on a whole-nm 1 nm or 5 nm grid.</param>
     /// <param name="cctKelvin">Test CCT (2° observer), K.</param>
@@ -114,9 +125,9 @@ public static class FidelityIndex
         {
             double dj = tJ[i] - rJ[i], da = tA[i] - rA[i], db = tB[i] - rB[i];
             de[i] = Math.Sqrt(dj * dj + da * da + db * db);
-            rfCes[i] = ToScale(de[i]);
             sum += de[i];
         }
+        ToScale(de, rfCes);
         double rf = ToScale(sum / SampleCount);
 
         var bins = new HueBin[16];
