@@ -45,12 +45,32 @@ public static class MonteCarlo
             var block = new double[columns][];
             for (int c = 0; c < columns; c++) block[c] = new double[m];
             long first = (long)h * m;
-            Parallel.For(0, m, po, i =>
+            // Draws in groups of 16, assessed together (Assessor.AssessMany: the rendition indices of a group share each pass
+            // over the sample weights). Each draw's random stream depends only on (seed, draw index), and each spectrum's sums
+            // are computed the same way whatever its group, so any thread count gives the same bytes.
+            int groups = (m + DrawGroup - 1) / DrawGroup;
+            Parallel.For(0, groups, po, g =>
             {
-                var rng = new RandomStream(run.Seed, (ulong)(first + i));
-                try
+                int from = g * DrawGroup, to = Math.Min(m, from + DrawGroup);
+                var drawn = new Spectrum?[to - from];
+                for (int i = from; i < to; i++)
                 {
-                    var a = Assessor.Assess(perturbation.Draw(ref rng), options);
+                    var rng = new RandomStream(run.Seed, (ulong)(first + i));
+                    try { drawn[i - from] = perturbation.Draw(ref rng); }
+                    catch (Exception ex) when (ex is InvalidSpectrumException or ArgumentException or InvalidOperationException) { drawn[i - from] = null; }
+                }
+                var valid = drawn.Where(d => d is not null).Select(d => d!).ToArray();
+                Assessment?[] assessed;
+                try { assessed = Assessor.AssessMany(valid, options); }
+                catch (Exception ex) when (ex is InvalidSpectrumException or ArgumentException or InvalidOperationException)
+                {
+                    assessed = valid.Select(d => AssessOrNull(d, options)).ToArray(); // one bad draw must not void its group
+                }
+                int next = 0;
+                for (int i = from; i < to; i++)
+                {
+                    var a = drawn[i - from] is null ? null : assessed[next++];
+                    if (a is null) { for (int c = 0; c < columns; c++) block[c][i] = double.NaN; continue; } // a draw that cannot be assessed counts as undefined
                     for (int f = 0; f < getters.Length; f++) block[f][i] = getters[f](a) ?? double.NaN;
                     if (spec is not null)
                     {
@@ -59,10 +79,6 @@ public static class MonteCarlo
                     }
                     block[columns - 2][i] = a.Chromaticity2Degree.UPrime;
                     block[columns - 1][i] = a.Chromaticity2Degree.VPrime;
-                }
-                catch (Exception ex) when (ex is InvalidSpectrumException or ArgumentException or InvalidOperationException)
-                {
-                    for (int c = 0; c < columns; c++) block[c][i] = double.NaN; // a draw that cannot be assessed counts as undefined
                 }
             });
             blocks.Add(block);
@@ -92,6 +108,15 @@ public static class MonteCarlo
         }
         var cov = Covariance(Column(blocks, columns - 2), Column(blocks, columns - 1));
         return new UncertaintyResult(model, (long)blocks.Count * m, run.Seed, run.Adaptive, fields, crit, cov, warnings);
+    }
+
+    /// <summary>Draws assessed together (one rendition block).</summary>
+    private const int DrawGroup = 16;
+
+    private static Assessment? AssessOrNull(Spectrum draw, AssessmentOptions options)
+    {
+        try { return Assessor.Assess(draw, options); }
+        catch (Exception ex) when (ex is InvalidSpectrumException or ArgumentException or InvalidOperationException) { return null; }
     }
 
     private static double[] Column(List<double[][]> blocks, int c) => blocks.SelectMany(b => b[c]).ToArray();
