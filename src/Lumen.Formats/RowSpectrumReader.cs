@@ -1,3 +1,4 @@
+using System.Globalization;
 using Lumen.Analysis;
 using Lumen.Spectra;
 
@@ -122,7 +123,12 @@ public static class RowSpectrumReader
     /// <param name="stem">Stem for names of rows without an ID.</param>
     /// <param name="unit">Unit when the text declares none; null for relative.</param>
     /// <returns>One parser per record, in file order.</returns>
-    public static IEnumerable<Func<InputRecord>> ReadDeferred(TextReader reader, string source, string stem, SpectralUnit? unit = null)
+    public static IEnumerable<Func<InputRecord>> ReadDeferred(TextReader reader, string source, string stem, SpectralUnit? unit = null) =>
+        ReadDeferred(reader, source, stem, unit, spans: true);
+
+    /// <summary><see cref="ReadDeferred(TextReader, string, string, SpectralUnit?)"/>, optionally without the span fast path
+    /// (tests compare the two).</summary>
+    internal static IEnumerable<Func<InputRecord>> ReadDeferred(TextReader reader, string source, string stem, SpectralUnit? unit, bool spans)
     {
         ArgumentNullException.ThrowIfNull(reader);
         SpectralUnit? declared = unit;
@@ -169,7 +175,7 @@ public static class RowSpectrumReader
                     yield return () => e;
                     yield break;
                 }
-                parser = new RowParser(source, stem, declared ?? SpectralUnit.Relative, d, header, idColumns, preamble);
+                parser = new RowParser(source, stem, declared ?? SpectralUnit.Relative, d, header, idColumns, preamble, spans);
                 continue;
             }
             rows++;
@@ -201,8 +207,11 @@ public static class RowSpectrumReader
         private readonly string[] _metadataNames;
         private readonly IReadOnlyList<KeyValuePair<string, string>> _preamble;
 
-        public RowParser(string source, string stem, SpectralUnit unit, char d, string[] header, int idColumns, List<KeyValuePair<string, string>> preamble)
+        private readonly bool _spans;
+
+        public RowParser(string source, string stem, SpectralUnit unit, char d, string[] header, int idColumns, List<KeyValuePair<string, string>> preamble, bool spans)
         {
+            _spans = spans;
             _source = source;
             _stem = stem;
             _unit = unit;
@@ -216,7 +225,89 @@ public static class RowSpectrumReader
             _preamble = preamble.Count == 0 ? [] : Preamble.Merge(preamble);
         }
 
-        public InputRecord Parse(string row, int ln)
+        public InputRecord Parse(string row, int ln) => (_spans ? TryParseFast(row, ln) : null) ?? ParseCells(row, ln);
+
+        /// <summary>
+        /// The common case without per-cell strings (issue 16): cells found and trimmed as spans, numbers parsed from the
+        /// spans; only the ID and metadata cells become strings. Anything unusual (a ragged row, a cell that is not a
+        /// number) returns null, and <see cref="ParseCells"/> then gives the diagnostic, so diagnostics have one source.
+        /// Same trimming, decimal-comma and trailing-delimiter rules as <see cref="Cells"/> and
+        /// <see cref="DelimitedSpectrumReader.TryParseNumber"/>; a test compares both paths on a hostile corpus.
+        /// </summary>
+        private InputRecord? TryParseFast(string row, int ln)
+        {
+            ReadOnlySpan<char> text = row;
+            var values = new double[_wavelengths.Length];
+            var idCells = _idColumns == 0 ? [] : new string[_idColumns];
+            int cell = 0, pos = 0;
+            bool whitespace = _d == ' ';
+            Span<char> comma = stackalloc char[64];
+            while (true)
+            {
+                int start, end;
+                bool last;
+                if (whitespace)
+                {
+                    while (pos < text.Length && char.IsWhiteSpace(text[pos])) pos++;
+                    if (pos == text.Length) break;
+                    start = pos;
+                    while (pos < text.Length && !char.IsWhiteSpace(text[pos])) pos++;
+                    end = pos;
+                    int rest = pos;
+                    while (rest < text.Length && char.IsWhiteSpace(text[rest])) rest++;
+                    last = rest == text.Length;
+                }
+                else
+                {
+                    start = pos;
+                    int at = text[pos..].IndexOf(_d);
+                    end = at < 0 ? text.Length : pos + at;
+                    last = at < 0;
+                    pos = end + 1;
+                }
+                var token = text[start..end].Trim().Trim('"').Trim();
+                if (cell < _idColumns) idCells[cell] = token.ToString();
+                else if (cell - _idColumns < values.Length)
+                {
+                    if (!TryNumber(token, comma, out values[cell - _idColumns])) return null;
+                }
+                else if (!(last && token.IsEmpty && cell == _expectedCells && cell + 1 > 2)) return null; // only a trailing delimiter may follow
+                cell++;
+                if (last) break;
+            }
+            if (cell < _expectedCells || (cell > _expectedCells && cell != _expectedCells + 1)) return null;
+            string name = _idColumns > 0 && idCells[0].Length > 0 ? idCells[0] : $"{_stem}:{ln}";
+            return Built(values, name, ln, Metadata(idCells));
+        }
+
+        /// <summary>A cell as a finite number: <see cref="DelimitedSpectrumReader.TryParseNumber"/> on a span.</summary>
+        private bool TryNumber(ReadOnlySpan<char> cell, Span<char> scratch, out double value)
+        {
+            if (_d != ',' && cell.Contains(',') && !cell.Contains('.'))
+            {
+                if (cell.Length > scratch.Length) { value = 0; return false; }
+                cell.CopyTo(scratch);
+                scratch[..cell.Length].Replace(',', '.');
+                cell = scratch[..cell.Length];
+            }
+            return double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
+        }
+
+        private InputRecord Built(double[] values, string name, int ln, IReadOnlyList<KeyValuePair<string, string>> metadata)
+        {
+            try
+            {
+                var s = new Spectrum(_wavelengths, values, _unit, name, new SpectrumOrigin($"{_source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" });
+                return new SpectrumRecord(_source, 0, name, s) { Line = ln, Metadata = metadata };
+            }
+            catch (InvalidSpectrumException ex)
+            {
+                return new ErrorRecord(_source, 0, name, new ReadDiagnostic(_source, ln, 1, ex.Message)) { Line = ln, Metadata = metadata };
+            }
+        }
+
+        /// <summary>The general path: every cell a string (<see cref="Cells"/>); gives the located diagnostics.</summary>
+        private InputRecord ParseCells(string row, int ln)
         {
             var cells = Cells(row, _d);
             string name = _idColumns > 0 && cells.Length > 0 && cells[0].Length > 0 ? cells[0] : $"{_stem}:{ln}";
@@ -232,15 +323,7 @@ public static class RowSpectrumReader
                     return new ErrorRecord(_source, 0, name, new ReadDiagnostic(_source, ln, _idColumns + i + 1,
                         cell.Length == 0 ? "empty cell; expected a number" : $"'{(cell.Length > 24 ? cell[..21] + "..." : cell)}' is not a number; expected a finite decimal number")) { Line = ln, Metadata = metadata };
             }
-            try
-            {
-                var s = new Spectrum(_wavelengths, values, _unit, name, new SpectrumOrigin($"{_source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" });
-                return new SpectrumRecord(_source, 0, name, s) { Line = ln, Metadata = metadata };
-            }
-            catch (InvalidSpectrumException ex)
-            {
-                return new ErrorRecord(_source, 0, name, new ReadDiagnostic(_source, ln, 1, ex.Message)) { Line = ln, Metadata = metadata };
-            }
+            return Built(values, name, ln, metadata);
         }
 
         // The preamble, then this row's metadata cells (those it has: a ragged row keeps what it carries).

@@ -24,6 +24,12 @@ public sealed class ParallelParseTests : IDisposable
             ["header-typo.csv"] = $"id,{wl.Replace("500", "5OO", StringComparison.Ordinal)}\nA,{Row(i => "1")}\n",
             ["header-only.csv"] = $"id,{wl}\n",
             ["empty.csv"] = "",
+            // Cases the span parser must treat exactly as the per-cell one (issue 16).
+            ["trailing.csv"] = $"id,{wl},\nA,{Row(i => "1")},\nB,{Row(i => "2")},,\nC,{Row(i => "3")}\n",
+            ["quoted.csv"] = $"\"id\",{wl}\n\" A \",{Row(i => i % 3 == 0 ? "\" 1.5 \"" : " 2 ")}\n\"\",{Row(i => "1")}\n,{Row(i => "1")}\n",
+            ["spaces.txt"] = $"id {wl.Replace(',', ' ')}\nA\t{Row(i => "1,5").Replace(',', ' ').Replace("1 5", "1,5", StringComparison.Ordinal)}  \n  B  {Row(i => i == 7 ? "\"" : "2").Replace(',', ' ')}\nC {Row(i => "3").Replace(',', ' ')} \"\"\n",
+            ["semicolon.csv"] = $"id;{wl.Replace(',', ';')}\nA;{Row(i => "1,25").Replace(',', ';').Replace("1;25", "1,25", StringComparison.Ordinal)}\nB;{Row(i => i == 2 ? "1,2,3" : i == 3 ? new string('1', 70) + ",5" : "1")}\n".Replace("1,2,3;", "1,2,3;", StringComparison.Ordinal),
+            ["extra-cell.csv"] = $"id,{wl}\nA,{Row(i => "1")},x\nB,{Row(i => "1")},,\nC,{Row(i => "+1.0E0")}\nD,{Row(i => "NaN")}\nE,{Row(i => "-0")}\n",
         };
         foreach (var (name, text) in files) File.WriteAllText(Path.Combine(_dir, name), text);
         return [.. files.Keys.Select(n => Path.Combine(_dir, n)), Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"),
@@ -56,6 +62,25 @@ public sealed class ParallelParseTests : IDisposable
             Parallel.For(0, deferred.Count, i => parsed[deferred.Count - 1 - i] = Describe(deferred[deferred.Count - 1 - i]()));
             Assert.Equal(streamed, parsed);
         }
+    }
+
+    [Fact]
+    public void The_span_parser_equals_the_per_cell_parser_on_every_corpus_file()
+    {
+        int spectra = 0;
+        foreach (var file in Corpus())
+        {
+            string stem = Path.GetFileNameWithoutExtension(file);
+            List<string> Parse(bool spans)
+            {
+                using var reader = new StreamReader(file);
+                return Lumen.Formats.RowSpectrumReader.ReadDeferred(reader, file, stem, null, spans).Select(p => Describe(p())).ToList();
+            }
+            var fast = Parse(true);
+            Assert.Equal(Parse(false), fast);
+            spectra += fast.Count(d => !d.Contains("Error", StringComparison.Ordinal) && !d.Contains(": ", StringComparison.Ordinal));
+        }
+        Assert.True(spectra > 200, $"only {spectra} spectra compared");
     }
 
     private static string Describe(Lumen.Analysis.InputRecord r) => r switch
