@@ -11,7 +11,7 @@ public static class Program
 {
     public static void Main(string[] args)
     {
-        if (args.Length >= 1 && args[0] == "batch-scale") { BatchScale.Run(args.Length > 1 ? int.Parse(args[1], CultureInfo.InvariantCulture) : 1_000_000); return; }
+        if (args.Length >= 1 && args[0] == "batch-scale") { BatchScale.Run(args.Length > 1 ? int.Parse(args[1], CultureInfo.InvariantCulture) : 1_000_000, args.Length > 2 ? int.Parse(args[2], CultureInfo.InvariantCulture) : 5); return; }
         if (args.Length >= 5 && args[0] == "batch-child") { BatchScale.Child(args[1], args[2], args[3], args[4]); return; }
         var results = Path.GetFullPath(Path.Combine(FindRoot(), "bench", "results"));
         var config = DefaultConfig.Instance

@@ -35,6 +35,8 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         DefaultValueFactory = _ => "cie15",
     };
 
+    public Option<int> ThreadsOption { get; } = CommonOptions.Threads();
+
     public Option<string> MetricsOption { get; } = new("--metrics")
     {
         Description = "Result groups, comma-separated: colorimetry, cri, fidelity (tm30), photometry, nonvisual, spectral, all. Default: all.",
@@ -71,7 +73,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         _inputs.AddTo(cmd);
         _spec.AddTo(cmd);
         _uncertainty.AddTo(cmd);
-        cmd.Add(ObserverOption); cmd.Add(FormatOption); cmd.Add(OutputOption); cmd.Add(MetricsOption); cmd.Add(C2Option); cmd.Add(DetailOption);
+        cmd.Add(ObserverOption); cmd.Add(FormatOption); cmd.Add(OutputOption); cmd.Add(MetricsOption); cmd.Add(C2Option); cmd.Add(DetailOption); cmd.Add(ThreadsOption);
         cmd.SetAction(Execute);
         return cmd;
     }
@@ -95,9 +97,11 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
 
         var format = CommonOptions.ToOutputFormat(parse.GetValue(FormatOption));
         bool anyError = false, anyFail = false, anyInconclusive = false;
-        RecordOutcome Next(InputRecord record)
+        // Records in parallel blocks (issue 16); with an uncertainty model, one record at a time and its draws on all cores.
+        int threads = model is null ? Math.Max(1, parse.GetValue(ThreadsOption)) : 1;
+        IEnumerable<RecordOutcome> Outcomes() => RecordBlocks.Stream(inputs.Deferred(stdin), options, spec, o => UncertaintyOptions.Propagate(o, options, spec, model, run, rule), threads);
+        RecordOutcome Next(RecordOutcome outcome)
         {
-            var outcome = UncertaintyOptions.Propagate(RecordOutcome.Of(record, options, spec), options, spec, model, run, rule);
             CommonOptions.ReportError(stderr, outcome.Error);
             anyError |= outcome.Error is not null;
             anyFail |= outcome.Status == "fail";
@@ -106,11 +110,11 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         }
         // JSON and CSV stream record by record (flat memory); the text table is sized from all rows.
         string? failure = format == OutputFormat.Text
-            ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(inputs.Records(stdin).Select(Next).ToList(), format, w, parse.GetValue(DetailOption)))
+            ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(Outcomes().Select(Next).ToList(), format, w, parse.GetValue(DetailOption)))
             : OutputTarget.WriteText(outPath, stdout, w =>
             {
                 var writer = new AnalysisStreamWriter(w, format, withVerdict: spec is not null, spec: spec, withUncertainty: model is not null);
-                foreach (var record in inputs.Records(stdin)) writer.Write(Next(record));
+                foreach (var outcome in Outcomes()) writer.Write(Next(outcome));
                 writer.Complete();
             });
         if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);

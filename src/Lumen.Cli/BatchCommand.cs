@@ -18,7 +18,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     private readonly UncertaintyOptions _uncertainty = new();
     public Option<string?> Out { get; } = OutputTarget.Option("Results file, one row per input record (.json for JSON, else CSV); default: CSV on standard output.");
     public Option<string?> Summary { get; } = new("--summary") { Description = "Summary file (.json for JSON, else text); default: standard output after a results file, or standard error." };
-    public Option<int> Threads { get; } = new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
+    public Option<int> Threads { get; } = CommonOptions.Threads();
     public Option<string?> FormatOption { get; } = new("--format") { Description = "Results format: csv, json (an array), jsonl (JSON Lines, one object per line) or parquet (Apache Parquet, typed columns; needs -o FILE). Default: from the --out name (.json, .jsonl, .ndjson, .parquet), else csv." };
     public Option<string?> Metrics { get; } = new("--metrics") { Description = "Extra result groups for the results and summary: cri, fidelity, photometry, nonvisual, spectral or all. Default: only what the spec's limits need (chromaticity always), the fastest." };
     public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Metadata column (e.g. lot, station) or preamble key: a summary per value, and the subgroups of Cpk unless --subgroup-size is given." };
@@ -30,10 +30,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     private MetricGroups _extraMetrics = MetricGroups.Colorimetry;
 
     /// <summary>Records computed per parallel chunk (input order is kept).</summary>
-    internal const int ChunkSize = 512;
-
-    /// <summary>Records assessed together (one rendition block, issue 16): 16 spectra share each pass over the sample weights.</summary>
-    internal const int BlockSize = 16;
+    internal const int ChunkSize = RecordBlocks.ChunkSize;
 
     /// <summary>Most rows of the terminal table, and most passing rows among them.</summary>
     private const int TerminalRowLimit = 200, TerminalPassRows = 20;
@@ -263,18 +260,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         {
             foreach (var chunk in toCompute.GetConsumingEnumerable())
             {
-                // Blocks of records: each block's rows are parsed and its rendition indices computed together
-                // (RecordOutcome.OfMany), which streams the sample weights once per few spectra instead of once per spectrum.
-                var results = new RecordOutcome[chunk.Count];
-                int blocks = (chunk.Count + BlockSize - 1) / BlockSize;
-                Parallel.For(0, blocks, po, b =>
-                {
-                    int from = b * BlockSize, to = Math.Min(chunk.Count, from + BlockSize);
-                    var records = new InputRecord[to - from];
-                    for (int i = from; i < to; i++) records[i - from] = chunk[i]();
-                    var outcomes = RecordOutcome.OfMany(records, options, spec);
-                    for (int i = from; i < to; i++) results[i] = UncertaintyOptions.Propagate(outcomes[i - from], options, spec, _model, _run, _rule);
-                });
+                var results = RecordBlocks.Compute(chunk, options, spec, o => UncertaintyOptions.Propagate(o, options, spec, _model, _run, _rule), threads);
                 toWrite.Add(results);
             }
         }

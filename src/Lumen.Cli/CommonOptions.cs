@@ -7,6 +7,10 @@ namespace Lumen.Cli;
 /// <summary>Option factories and small helpers that several verbs share.</summary>
 internal static class CommonOptions
 {
+    /// <summary>The --threads option: worker threads, default all cores.</summary>
+    /// <returns>A new option.</returns>
+    public static Option<int> Threads() => new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
+
     /// <summary>A <c>--format</c> option accepting <paramref name="formats"/> (the first is the default).</summary>
     public static Option<string> Format(params string[] formats)
     {

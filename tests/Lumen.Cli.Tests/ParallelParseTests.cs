@@ -51,6 +51,22 @@ public sealed class ParallelParseTests : IDisposable
         Assert.Contains(":1:", a.Err, StringComparison.Ordinal); // the header typo, located
     }
 
+    [Theory]
+    [InlineData("csv")]
+    [InlineData("json")]
+    [InlineData("text")]
+    public void Analyze_output_and_diagnostics_are_byte_identical_on_one_and_four_threads(string format)
+    {
+        var inputs = Corpus();
+        var a = CliTests.Run("", ["analyze", .. inputs, "--format", format, "--nominal-cct", "3000", "--steps", "5", "--min", "ra=80", "--threads", "1"]);
+        var b = CliTests.Run("", ["analyze", .. inputs, "--format", format, "--nominal-cct", "3000", "--steps", "5", "--min", "ra=80", "--threads", "4"]);
+        Assert.Equal(ExitCodes.InputErrors, a.Code);
+        Assert.Equal(a.Code, b.Code);
+        Assert.Equal(a.Out, b.Out);
+        Assert.Equal(a.Err, b.Err);
+        Assert.True(a.Out.Length > 10000);
+    }
+
     [Fact]
     public void Deferred_rows_parsed_in_any_order_equal_the_streamed_records()
     {

@@ -14,10 +14,10 @@ public static class BatchFile
     /// <summary>Row numbers (1-based data rows) that get faults when asked.</summary>
     public static readonly int[] FaultRows = [7, 19, 33, 58];
 
-    public static void Write(string path, int rows, int seed, bool faults)
+    public static void Write(string path, int rows, int seed, bool faults, int stepNm = 5)
     {
         var inv = CultureInfo.InvariantCulture;
-        var grid = SyntheticSpectra.Grid(380, 780, 5);
+        var grid = SyntheticSpectra.Grid(380, 780, stepNm);
         var rng = new Random(seed);
         using var w = new StreamWriter(path, false, new UTF8Encoding(false), 1 << 16);
         w.Write("# Quillfern Lighting Works (fictional) DL-30 end-of-line test, invented data from tools/Lumen.Examples\n");
