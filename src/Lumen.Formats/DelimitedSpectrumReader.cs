@@ -259,6 +259,7 @@ public static class DelimitedSpectrumReader
         var text = cell;
         if (delimiter != ',' && text.Contains(',', StringComparison.Ordinal) && !text.Contains('.', StringComparison.Ordinal))
             text = text.Replace(',', '.');
+        if (PlainDecimal.TryParse(text, out value)) return true;
         return double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
     }
 }

@@ -290,6 +290,7 @@ public static class RowSpectrumReader
                 scratch[..cell.Length].Replace(',', '.');
                 cell = scratch[..cell.Length];
             }
+            if (PlainDecimal.TryParse(cell, out value)) return true;
             return double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
         }
 

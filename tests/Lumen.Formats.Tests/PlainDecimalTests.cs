@@ -1,0 +1,72 @@
+using System.Globalization;
+using Lumen.Formats;
+using Xunit;
+
+namespace Lumen.Formats.Tests;
+
+/// <summary>
+/// The exact fast path for plain decimals (issue 16) gives the same double, bit for bit, as .NET's correctly rounded
+/// parser (the reference: IEEE 754 round-to-nearest, which double.Parse follows since .NET Core 3.0), and declines
+/// everything it does not cover.
+/// </summary>
+public class PlainDecimalTests
+{
+    [Theory]
+    [InlineData("0")]
+    [InlineData("-0")]
+    [InlineData("+0.0")]
+    [InlineData("1")]
+    [InlineData("1.")]
+    [InlineData(".5")]
+    [InlineData("-.25")]
+    [InlineData("007.5")]
+    [InlineData("0.0012345")]
+    [InlineData("0.1")]
+    [InlineData("0.3")]
+    [InlineData("123456789012345")]
+    [InlineData("1234567.89012345")]
+    [InlineData("0.0000000000000000000001")]
+    [InlineData("900719925474.099")]
+    public void Plain_decimals_equal_the_general_parser_bit_for_bit(string text)
+    {
+        Assert.True(PlainDecimal.TryParse(text, out double fast));
+        double general = double.Parse(text, NumberStyles.Float, CultureInfo.InvariantCulture);
+        Assert.Equal(BitConverter.DoubleToInt64Bits(general), BitConverter.DoubleToInt64Bits(fast));
+    }
+
+    [Theory]
+    [InlineData("")]
+    [InlineData("-")]
+    [InlineData(".")]
+    [InlineData("1e5")]
+    [InlineData("1E-3")]
+    [InlineData("1234567890123456")] // 16 significant digits: beyond the exact path
+    [InlineData("0.00000000000000000000001")] // 23 decimals: beyond 10^22
+    [InlineData("1.2.3")]
+    [InlineData("1,5")]
+    [InlineData(" 1")]
+    [InlineData("NaN")]
+    [InlineData("∞")]
+    [InlineData("--1")]
+    public void Anything_else_goes_to_the_general_parser(string text) => Assert.False(PlainDecimal.TryParse(text, out _));
+
+    [Fact]
+    public void Random_decimals_of_every_length_and_scale_equal_the_general_parser()
+    {
+        var rng = new Random(16);
+        int taken = 0;
+        for (int n = 0; n < 200_000; n++)
+        {
+            int digits = rng.Next(1, 18), point = rng.Next(0, digits + 1), zeros = rng.Next(0, 8);
+            var chars = new char[digits];
+            for (int i = 0; i < digits; i++) chars[i] = (char)('0' + rng.Next(10));
+            string body = new string(chars);
+            string text = (rng.Next(4) == 0 ? "-" : "") + (point == digits ? body : body[..point] + "." + new string('0', zeros) + body[point..]);
+            double general = double.Parse(text, NumberStyles.Float, CultureInfo.InvariantCulture);
+            if (!PlainDecimal.TryParse(text, out double fast)) continue;
+            taken++;
+            Assert.True(BitConverter.DoubleToInt64Bits(general) == BitConverter.DoubleToInt64Bits(fast), $"{text}: {general:R} vs {fast:R}");
+        }
+        Assert.True(taken > 100_000, $"only {taken} took the fast path");
+    }
+}
