@@ -59,9 +59,10 @@ public static class Program
             foreach (var row in old.Where(l => l.StartsWith("| '", StringComparison.Ordinal) || l.StartsWith("| \"", StringComparison.Ordinal)))
             {
                 var key = row.Split('|')[1].Trim();
-                if (!fresh.Contains(key) && !key.Contains("(from ", StringComparison.Ordinal))
-                    lines.Add(row.Replace($"| {key} |", $"| {key} (from {oldRun}) |", StringComparison.Ordinal));
-                else if (!fresh.Contains(key)) lines.Add(row);
+                int from = key.IndexOf(" (from ", StringComparison.Ordinal);
+                var name = from < 0 ? key : key[..from]; // a row kept from an earlier run is replaced when its benchmark ran again
+                if (fresh.Contains(name)) continue;
+                lines.Add(from < 0 ? row.Replace($"| {key} |", $"| {key} (from {oldRun}) |", StringComparison.Ordinal) : row);
             }
         }
         File.WriteAllLines(path, lines);

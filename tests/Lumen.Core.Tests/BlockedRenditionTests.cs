@@ -147,6 +147,34 @@ public class BlockedRenditionTests
         }
     }
 
+    [Theory]
+    [InlineData("ces", 1, 380, 401)]
+    [InlineData("ces", 5, 380, 81)]
+    [InlineData("tcs", 1, 360, 471)]
+    [InlineData("tcs", 5, 380, 81)]
+    public void Planckian_reference_sums_from_the_table_equal_direct_sums(string set, int step, int start, int count)
+    {
+        var samples = set == "ces" ? (step == 1 ? CieTables.ColorEvaluationSamples1Nm : CieTables.ColorEvaluationSamples5Nm)
+            : step == 1 ? CieTables.CriTestSamples.SpragueToOneNm() : CieTables.CriTestSamples;
+        var observer = set == "ces" ? Observer.Cie1964TenDegree : Observer.Cie1931TwoDegree;
+        var rows = SampleSums.For(samples, observer, start, step, count).Rows;
+        var table = PlanckianSums.Build(rows, start, step, count);
+        Assert.NotNull(table); // it passed its own check; now probe it at random temperatures
+        var rng = new Random(step * 1000 + count);
+        var sums = new double[rows.Length];
+        for (int n = 0; n < 200; n++)
+        {
+            double t = 1000 + 4000 * rng.NextDouble();
+            Assert.True(table.TryEvaluate(t, sums));
+            var direct = new double[rows.Length];
+            SpectralSum.Many(rows, [ReferenceIlluminants.Planckian(t, start, step, count)], direct);
+            for (int r = 0; r < rows.Length; r++)
+                Assert.True(Math.Abs(sums[r] - direct[r]) <= 1e-12 * Math.Abs(direct[r]), $"{t:0.###} K, row {r}: {sums[r]:R} vs {direct[r]:R}");
+        }
+        Assert.False(table.TryEvaluate(999, sums));
+        Assert.False(table.TryEvaluate(5001, sums));
+    }
+
     [Fact]
     public void Blocked_sums_equal_scalar_dot_products_for_any_count_and_length()
     {

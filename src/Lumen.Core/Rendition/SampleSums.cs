@@ -12,13 +12,15 @@ namespace Lumen.Rendition;
 /// Weight rows: 3 for the white, then 3 per sample, all × Δλ (<see cref="SpectralWeights"/>); the sums run through
 /// <see cref="SpectralSum.Many"/>. A CIE daylight reference is S0 + M1·S1 + M2·S2, so its sums are
 /// Σw·S0 + M1·Σw·S1 + M2·Σw·S2 with the three component sums computed once per grid: the same value as summing the
-/// daylight spectrum, in another order (rounding of order 1e-15 relative). Planckian and blended references are summed
-/// like the test spectra, in the same pass.
+/// daylight spectrum, in another order (rounding of order 1e-15 relative). Planckian references of 1000–5000 K come from
+/// <see cref="PlanckianSums"/> (interpolated, checked to 1e-12 relative); blended ones, and Planckian ones should that
+/// table fail its check, are summed like the test spectra, in the same pass.
 /// </remarks>
 internal sealed class SampleSums
 {
     private static readonly ConcurrentDictionary<(string, Observer, int, int, int), SampleSums> Cache = new();
     private readonly double[] _daylight; // rows × 3: sums of S0, S1, S2
+    private readonly Lazy<PlanckianSums?> _planckian;
 
     private SampleSums(double[][] rows, int startNm, int stepNm, int count)
     {
@@ -26,6 +28,7 @@ internal sealed class SampleSums
         var (s0, s1, s2) = ReferenceIlluminants.DaylightComponentsOn(startNm, stepNm, count);
         _daylight = new double[3 * rows.Length];
         SpectralSum.Many(rows, [s0, s1, s2], _daylight);
+        _planckian = new(() => PlanckianSums.Build(rows, startNm, stepNm, count));
     }
 
     /// <summary>Weight rows: x̄, ȳ, z̄ of the white, then x̄, ȳ, z̄ of each sample, each × Δλ.</summary>
@@ -67,15 +70,22 @@ internal sealed class SampleSums
         int rows = RowCount;
         var vectors = new List<double[]>(2 * tests.Count);
         vectors.AddRange(tests);
-        foreach (var r in references)
-            if (r.Kind != ReferenceKind.CieDaylight) vectors.Add(r.Samples.Values);
+        var planckian = _planckian.Value;
+        var tabulated = new bool[references.Count];
+        for (int i = 0; i < references.Count; i++)
+        {
+            var r = references[i];
+            if (r.Kind == ReferenceKind.CieDaylight) continue;
+            if (r.Kind == ReferenceKind.Planckian && planckian is not null && planckian.TryEvaluate(r.CctKelvin, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
+            vectors.Add(r.Samples.Values);
+        }
         var rented = System.Buffers.ArrayPool<double>.Shared.Rent(vectors.Count * rows);
-        try { Split(rented.AsSpan(0, vectors.Count * rows), tests.Count, vectors, references, testSums, referenceSums); }
+        try { Split(rented.AsSpan(0, vectors.Count * rows), tests.Count, vectors, references, tabulated, testSums, referenceSums); }
         finally { System.Buffers.ArrayPool<double>.Shared.Return(rented); }
     }
 
     /// <summary>Sums every vector (tests first, then the non-daylight references) and hands each out.</summary>
-    private void Split(Span<double> all, int count, List<double[]> vectors, IReadOnlyList<ReferenceIlluminant> references, Span<double> testSums, Span<double> referenceSums)
+    private void Split(Span<double> all, int count, List<double[]> vectors, IReadOnlyList<ReferenceIlluminant> references, bool[] tabulated, Span<double> testSums, Span<double> referenceSums)
     {
         int rows = RowCount;
         SpectralSum.Many(Rows, vectors, all);
@@ -83,6 +93,7 @@ internal sealed class SampleSums
         int next = count;
         for (int i = 0; i < count; i++)
         {
+            if (tabulated[i]) continue; // already written from the Planckian table
             var target = referenceSums.Slice(i * rows, rows);
             if (references[i].Kind != ReferenceKind.CieDaylight) { all.Slice(next++ * rows, rows).CopyTo(target); continue; }
             var (m1, m2) = ReferenceIlluminants.DaylightFactors(references[i].CctKelvin);
