@@ -28,7 +28,7 @@ internal sealed class PlanckianSums
     private const int Pieces = 16, Nodes = 16;
     private const double PieceWidth = (MaxMired - MinMired) / Pieces;
     private readonly int _rows;
-    private readonly double[] _coefficients; // [piece][row][k]
+    private readonly double[] _coefficients; // [piece][k][row]: one run of rows per Chebyshev term
 
     private PlanckianSums(int rows, double[] coefficients)
     {
@@ -66,7 +66,7 @@ internal sealed class PlanckianSums
                 {
                     double c = 0;
                     for (int j = 0; j < Nodes; j++) c += values[j] * Math.Cos(Math.PI * k * (j + 0.5) / Nodes);
-                    coefficients[(p * r + row) * Nodes + k] = (k == 0 ? 1.0 : 2.0) / Nodes * c;
+                    coefficients[(p * Nodes + k) * r + row] = (k == 0 ? 1.0 : 2.0) / Nodes * c;
                 }
             }
         }
@@ -83,15 +83,17 @@ internal sealed class PlanckianSums
         double mired = 1e6 / temperatureKelvin;
         if (!(mired >= MinMired && mired <= MaxMired)) return false;
         int p = Math.Min(Pieces - 1, (int)((mired - MinMired) / PieceWidth));
-        double t = (mired - (MinMired + (p + 0.5) * PieceWidth)) / (0.5 * PieceWidth), t2 = 2 * t;
-        for (int row = 0; row < _rows; row++)
+        double t = (mired - (MinMired + (p + 0.5) * PieceWidth)) / (0.5 * PieceWidth);
+        // Σ c_k·T_k(t) for every row at once: the Chebyshev polynomials at t once, then one vectorised multiply-add per term.
+        var output = sums[.._rows];
+        double tkMinus1 = 1, tk = t;
+        _coefficients.AsSpan(p * Nodes * _rows, _rows).CopyTo(output);
+        for (int k = 1; k < Nodes; k++)
         {
-            // Clenshaw's recurrence for Σ c_k·T_k(t).
-            var c = _coefficients.AsSpan((p * _rows + row) * Nodes, Nodes);
-            double b1 = 0, b2 = 0;
-            for (int k = Nodes - 1; k >= 1; k--) { double b = t2 * b1 - b2 + c[k]; b2 = b1; b1 = b; }
-            sums[row] = Math.Exp(t * b1 - b2 + c[0]);
+            System.Numerics.Tensors.TensorPrimitives.MultiplyAdd(_coefficients.AsSpan((p * Nodes + k) * _rows, _rows), tk, output, output);
+            (tkMinus1, tk) = (tk, 2 * t * tk - tkMinus1);
         }
+        System.Numerics.Tensors.TensorPrimitives.Exp(output, output);
         return true;
     }
 
