@@ -67,14 +67,17 @@ public static class BatchScale
     public static int Full(string file, string spec, string output) =>
         Lumen.Cli.LumenApp.Run(["batch", file, "--spec", spec, "--out", output, "--summary", output + ".summary.txt"], TextReader.Null, TextWriter.Null, TextWriter.Null);
 
-    /// <summary>The batch modes measured against parse-only: (name, description, extra arguments).</summary>
+    /// <summary>The batch modes measured against parse-only: (name, description, extra arguments). A "1" mode runs on
+    /// one core (pinned with taskset where there is one, else with --threads 1), for the scaling figure.</summary>
     private static readonly (string Mode, string Label, string[] Args)[] Modes =
     [
         ("full", "lumen batch, full example spec (Ra, R9, Rf, Duv, 3-step ellipse), all cores", []),
-        ("full1", "lumen batch, full example spec, --threads 1", ["--threads", "1"]),
+        ("full1", "lumen batch, full example spec, one core", []),
         ("chroma", "lumen batch, chromaticity-only spec (3000 K, 3 steps), all cores", ["--nominal-cct", "3000", "--steps", "3"]),
-        ("chroma1", "lumen batch, chromaticity-only spec, --threads 1", ["--nominal-cct", "3000", "--steps", "3", "--threads", "1"]),
+        ("chroma1", "lumen batch, chromaticity-only spec, one core", ["--nominal-cct", "3000", "--steps", "3"]),
     ];
+
+    private static readonly bool Pinning = File.Exists("/usr/bin/taskset");
 
     /// <summary>Child process: runs one mode and prints "seconds peakBytes".</summary>
     public static void Child(string mode, string file, string spec, string output)
@@ -86,8 +89,9 @@ public static class BatchScale
         else
         {
             var m = Modes.Single(x => x.Mode == mode);
-            string[] args = mode.StartsWith("chroma", StringComparison.Ordinal) ? ["batch", file, .. m.Args, "--out", output, "--summary", output + ".summary.txt"]
-                : ["batch", file, "--spec", spec, .. m.Args, "--out", output, "--summary", output + ".summary.txt"];
+            string[] threads = mode.EndsWith('1') ? ["--threads", "1"] : []; // under taskset the process sees one core anyway
+            string[] args = mode.StartsWith("chroma", StringComparison.Ordinal) ? ["batch", file, .. m.Args, .. threads, "--out", output, "--summary", output + ".summary.txt"]
+                : ["batch", file, "--spec", spec, .. m.Args, .. threads, "--out", output, "--summary", output + ".summary.txt"];
             Lumen.Cli.LumenApp.Run(args, TextReader.Null, TextWriter.Null, TextWriter.Null);
         }
         sw.Stop();
@@ -110,9 +114,11 @@ public static class BatchScale
         var output = Path.Combine(dir, "out.csv");
         (double Seconds, long Peak) Child(string mode)
         {
-            var psi = new ProcessStartInfo(Environment.ProcessPath!, [typeof(BatchScale).Assembly.Location, "batch-child", mode, file, spec, output])
-            { RedirectStandardOutput = true, UseShellExecute = false };
-            if (Environment.ProcessPath!.EndsWith("Lumen.Bench", StringComparison.Ordinal)) psi = new ProcessStartInfo(Environment.ProcessPath!, ["batch-child", mode, file, spec, output]) { RedirectStandardOutput = true, UseShellExecute = false };
+            string[] command = Environment.ProcessPath!.EndsWith("Lumen.Bench", StringComparison.Ordinal)
+                ? [Environment.ProcessPath!, "batch-child", mode, file, spec, output]
+                : [Environment.ProcessPath!, typeof(BatchScale).Assembly.Location, "batch-child", mode, file, spec, output];
+            if (mode.EndsWith('1') && Pinning) command = ["/usr/bin/taskset", "-c", "0", .. command];
+            var psi = new ProcessStartInfo(command[0], command[1..]) { RedirectStandardOutput = true, UseShellExecute = false };
             using var p = Process.Start(psi)!;
             string text = p.StandardOutput.ReadToEnd();
             p.WaitForExit();
@@ -145,10 +151,11 @@ public static class BatchScale
         lines.Add("");
         lines.Add(string.Create(CultureInfo.InvariantCulture, $"Against the outside baseline (Sep): full spec {Of(Modes[0].Label) / sep.Seconds:0.00}×, chromaticity-only {Of(Modes[2].Label) / sep.Seconds:0.00}×; Lumen's parse-only {parse.Seconds / sep.Seconds:0.00}×."));
         lines.Add("");
-        lines.Add(string.Create(CultureInfo.InvariantCulture, $"Scaling over {Environment.ProcessorCount} cores against one thread, same run: full spec {Of(Modes[1].Label) / Of(Modes[0].Label):0.00}×, chromaticity-only {Of(Modes[3].Label) / Of(Modes[2].Label):0.00}×."));
+        lines.Add(string.Create(CultureInfo.InvariantCulture, $"Scaling, {Environment.ProcessorCount} cores against one ({(Pinning ? "pinned with taskset -c 0" : "--threads 1; the reader and writer threads still run beside it")}), same run: full spec {Of(Modes[1].Label) / Of(Modes[0].Label):0.00}×, chromaticity-only {Of(Modes[3].Label) / Of(Modes[2].Label):0.00}×."));
         lines.Add("");
         lines.Add("Targets (issue 16): full spec ≤ 1.5× parse-only, chromaticity-only ≤ 0.5× parse-only (which needs parsing on all cores), --threads 2 ≥ 1.7× --threads 1.");
-        File.WriteAllLines(Path.Combine(BenchPaths.Root, "bench", "results", stepNm == 5 ? "batch.md" : $"batch-{stepNm}nm.md"), lines);
+        string name = rows == 20000 && stepNm == 5 ? "batch.md" : rows == 20000 ? $"batch-{stepNm}nm.md" : $"batch-{rows / 1000}k-{stepNm}nm.md";
+        File.WriteAllLines(Path.Combine(BenchPaths.Root, "bench", "results", name), lines);
         Console.WriteLine(string.Join('\n', lines));
     }
 }
