@@ -29,10 +29,9 @@ public static class Assessor
     }
 
     /// <summary>
-    /// Assesses many spectra at once: the same assessments as <see cref="Assess"/> on each (rendition indices within
-    /// 1e-9: only the order of the floating-point sums differs), with the rendition indices of the whole block computed
-    /// together (<see cref="ColorRenderingIndex.ComputeMany"/>, <see cref="FidelityIndex.ComputeMany"/>), which is several
-    /// times faster per spectrum. Give blocks of 8–32 spectra.
+    /// Assesses many spectra at once: the same assessments as <see cref="Assess"/> on each, bit for bit, with the rendition
+    /// indices of the whole block computed together (<see cref="ColorRenderingIndex.ComputeMany"/>,
+    /// <see cref="FidelityIndex.ComputeMany"/>), which is faster per spectrum. Give blocks of 8–32 spectra.
     /// </summary>
     /// <param name="spectra">The measured spectra.</param>
     /// <param name="options">Options; null for defaults.</param>

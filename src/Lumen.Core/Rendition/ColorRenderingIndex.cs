@@ -33,9 +33,9 @@ public static class ColorRenderingIndex
     }
 
     /// <summary>
-    /// Computes Ra and R1–R14 of many spectra at once: the same results as <see cref="Compute"/> on each (within 1e-9;
-    /// only the order of the floating-point sums differs), with the sample weights streamed once per four spectra
-    /// (<see cref="SampleSums"/>). Spectra on different grids are grouped by grid.
+    /// Computes Ra and R1–R14 of many spectra at once: the same results as <see cref="Compute"/> on each, bit for bit,
+    /// with the sample weights streamed once per four spectra and the reference sums from tables (<see cref="SampleSums"/>;
+    /// within 1e-9 of a direct computation). Spectra on different grids are grouped by grid.
     /// </summary>
     /// <param name="tests">Test spectra, each on a whole-nm 1 nm or 5 nm grid.</param>
     /// <param name="cctsKelvin">The CCT (2° observer) of each, K.</param>

@@ -50,9 +50,10 @@ public static class FidelityIndex
     }
 
     /// <summary>
-    /// Computes Rf, Rg, Rf,i and the hue bins of many spectra at once: the same results as <see cref="Compute"/> on each
-    /// (within 1e-9; only the order of the floating-point sums differs), several times faster per spectrum, because the
-    /// 99 samples' weights are streamed once per four spectra (<see cref="SampleSums"/>). Give blocks of 8–32 spectra.
+    /// Computes Rf, Rg, Rf,i and the hue bins of many spectra at once: the same results as <see cref="Compute"/> on each,
+    /// bit for bit (a spectrum's sums do not depend on its block), faster per spectrum because the 99 samples' weights are
+    /// streamed once per four spectra and daylight and Planckian reference sums come from tables (<see cref="SampleSums"/>;
+    /// all outputs within 1e-9 of a direct one-spectrum computation, which the tests keep). Give blocks of 8–32 spectra.
     /// </summary>
     /// <param name="tests">Test spectra, each on a whole-nm 1 nm or 5 nm grid.</param>
     /// <param name="cctsKelvin">The CCT (2° observer) of each, K.</param>
