@@ -66,6 +66,19 @@ public sealed class Column<T>
         return _text!(row) is { } s ? Csv.Quote(s) : "";
     }
 
+    /// <summary>Writes the CSV cell (the same text as <see cref="CsvCell"/>), numbers without an intermediate string.</summary>
+    /// <param name="output">Destination.</param>
+    /// <param name="row">The row.</param>
+    public void WriteCsvCell(TextWriter output, T row)
+    {
+        ArgumentNullException.ThrowIfNull(output);
+        if (_number is null) { output.Write(CsvCell(row)); return; }
+        if (NumberOf(row) is not { } x) return;
+        Span<char> buffer = stackalloc char[32]; // "R" needs at most 24 characters for a double
+        if (x.TryFormat(buffer, out int written, "R", Inv)) output.Write(buffer[..written]);
+        else output.Write(x.ToString("R", Inv));
+    }
+
     /// <summary>The text-table cell.</summary>
     /// <param name="row">The row.</param>
     /// <returns>The cell text ("—" when missing).</returns>

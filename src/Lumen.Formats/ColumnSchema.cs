@@ -28,7 +28,7 @@ public sealed record ColumnSchema<T>(IReadOnlyList<Column<T>> Columns)
         for (int i = 0; i < Columns.Count; i++)
         {
             if (i > 0) output.Write(',');
-            output.Write(Columns[i].CsvCell(row));
+            Columns[i].WriteCsvCell(output, row);
         }
         output.WriteLine();
     }

@@ -179,6 +179,16 @@ public class BlockedRenditionTests
     }
 
     [Fact]
+    public void Tables_for_many_grids_stay_bounded_and_results_stay_right()
+    {
+        var tcs = CieTables.CriTestSamples;
+        for (int start = 300; start < 300 + SampleSums.CacheLimit + 40; start++) SampleSums.For(tcs, Observer.Cie1931TwoDegree, start, 5, 60);
+        Assert.True(SampleSums.CachedGrids <= SampleSums.CacheLimit);
+        foreach (var (samples, cct, _) in RandomSpectra(4, 99))
+            Close(UnblockedRendition.Cri(samples, cct).Ra, ColorRenderingIndex.Compute(samples, cct).Ra, "Ra after the cache was refilled");
+    }
+
+    [Fact]
     public void Blocked_sums_equal_scalar_dot_products_for_any_count_and_length()
     {
         var rng = new Random(16);

@@ -44,8 +44,14 @@ internal sealed class SampleSums
     /// <param name="stepNm">Grid step, whole nm.</param>
     /// <param name="count">Grid size.</param>
     /// <returns>The cached sums table.</returns>
-    public static SampleSums For(CieTable samples, Observer observer, int startNm, int stepNm, int count) =>
-        Cache.GetOrAdd((samples.Name, observer, startNm, stepNm, count), _ =>
+    public static SampleSums For(CieTable samples, Observer observer, int startNm, int stepNm, int count)
+    {
+        var key = (samples.Name, observer, startNm, stepNm, count);
+        if (Cache.TryGetValue(key, out var cached)) return cached;
+        // Grids are few in practice (one per instrument setting). Should a run meet more than CacheLimit of them, the
+        // tables are dropped and rebuilt as needed: memory stays bounded, and every result still comes from a table.
+        if (Cache.Count >= CacheLimit) Cache.Clear();
+        return Cache.GetOrAdd(key, _ =>
         {
             var cmf = Colorimeter.CmfWeights(observer, startNm, stepNm, count);
             var w = SpectralWeights.ForSamples(samples, observer, startNm, stepNm, count);
@@ -54,6 +60,13 @@ internal sealed class SampleSums
             for (int i = 0; i < w.Weights.Length; i++) rows[3 + i] = w.Weights[i];
             return new SampleSums(rows, startNm, stepNm, count);
         });
+    }
+
+    /// <summary>Most grids whose tables are kept at once.</summary>
+    internal const int CacheLimit = 256;
+
+    /// <summary>Number of grids whose tables are kept now.</summary>
+    internal static int CachedGrids => Cache.Count;
 
     /// <summary>
     /// The sums of each test spectrum and of its reference (all on this table's grid), in one pass over the weights.
