@@ -64,12 +64,8 @@ public static class ColorRenderingIndex
                 vectors[j] = tests[members[j]].Values;
                 references[j] = ReferenceIlluminants.ForCie13_3(cctsKelvin[members[j]], start, step, n);
             }
-            int rows = table.RowCount;
-            var testSums = new double[members.Count * rows];
-            var refSums = new double[members.Count * rows];
-            table.Compute(vectors, references, testSums, refSums);
-            for (int j = 0; j < members.Count; j++)
-                results[members[j]] = FromSums(testSums.AsSpan(j * rows, rows), refSums.AsSpan(j * rows, rows), references[j]);
+            var group = table.Evaluate(vectors, references, FromSums);
+            for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
         }
         return results;
     }

@@ -79,12 +79,8 @@ public static class FidelityIndex
                 vectors[j] = OnGrid(tests[members[j]], step, n);
                 references[j] = ReferenceIlluminants.ForCie224(cctsKelvin[members[j]], FirstNm, step, n);
             }
-            int rows = table.RowCount;
-            var testSums = new double[members.Count * rows];
-            var refSums = new double[members.Count * rows];
-            table.Compute(vectors, references, testSums, refSums);
-            for (int j = 0; j < members.Count; j++)
-                results[members[j]] = FromSums(testSums.AsSpan(j * rows, rows), refSums.AsSpan(j * rows, rows), references[j]);
+            var group = table.Evaluate(vectors, references, FromSums);
+            for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
         }
         return results;
     }

@@ -68,6 +68,29 @@ internal sealed class SampleSums
     /// <summary>Number of grids whose tables are kept now.</summary>
     internal static int CachedGrids => Cache.Count;
 
+    /// <summary>A rendition index from the sums of one test spectrum and of its reference.</summary>
+    /// <typeparam name="T">The result type.</typeparam>
+    public delegate T FromSums<T>(ReadOnlySpan<double> testSums, ReadOnlySpan<double> referenceSums, ReferenceIlluminant reference);
+
+    /// <summary>The sums of each test spectrum and its reference (<see cref="Compute"/>), then each one's result.</summary>
+    /// <typeparam name="T">The result type.</typeparam>
+    /// <param name="tests">Test spectra on this table's grid.</param>
+    /// <param name="references">The reference of each.</param>
+    /// <param name="result">Turns one spectrum's sums into its result.</param>
+    /// <returns>One result per test spectrum, in order.</returns>
+    public T[] Evaluate<T>(IReadOnlyList<double[]> tests, IReadOnlyList<ReferenceIlluminant> references, FromSums<T> result)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        int rows = RowCount;
+        var testSums = new double[tests.Count * rows];
+        var referenceSums = new double[tests.Count * rows];
+        Compute(tests, references, testSums, referenceSums);
+        var results = new T[tests.Count];
+        for (int j = 0; j < results.Length; j++)
+            results[j] = result(testSums.AsSpan(j * rows, rows), referenceSums.AsSpan(j * rows, rows), references[j]);
+        return results;
+    }
+
     /// <summary>
     /// The sums of each test spectrum and of its reference (all on this table's grid), in one pass over the weights.
     /// </summary>
