@@ -83,7 +83,15 @@ public sealed class LineReader : TextReader
                 if (_len == 0) { _eof = true; continue; }
             }
             int start = _pos;
-            while (_pos < _len && _buffer[_pos] != '\n') _pos++;
+            int found = _buffer.AsSpan(_pos, _len - _pos).IndexOf('\n'); // vectorised search
+            _pos = found < 0 ? _len : _pos + found;
+            if (found >= 0 && _line.Length == 0 && found <= MaxLineChars)
+            {
+                // The whole line lies in the buffer: one copy into its string.
+                _pos++; // the '\n'
+                int length = found > 0 && _buffer[start + found - 1] == '\r' ? found - 1 : found;
+                return new string(_buffer, start, length);
+            }
             _line.Append(_buffer, start, _pos - start);
             if (_line.Length > MaxLineChars)
                 throw new LineTooLongException(LinesRead + _replay.Count + 1);
