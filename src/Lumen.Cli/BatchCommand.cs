@@ -22,7 +22,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     public Option<string?> FormatOption { get; } = new("--format") { Description = "Results format: csv, json (an array), jsonl (JSON Lines, one object per line) or parquet (Apache Parquet, typed columns; needs -o FILE). Default: from the --out name (.json, .jsonl, .ndjson, .parquet), else csv." };
     public Option<string?> Metrics { get; } = new("--metrics") { Description = "Extra result groups for the results and summary: cri, fidelity, photometry, nonvisual, spectral or all. Default: only what the spec's limits need (chromaticity always), the fastest." };
     public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Metadata column (e.g. lot, station) or preamble key: a summary per value, and the subgroups of Cpk unless --subgroup-size is given." };
-    public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Consecutive results per subgroup for Cpk (within-subgroup SD), at least 2." };
+    public Option<int?> SubgroupSize { get; } = new Option<int?>("--subgroup-size") { Description = "Consecutive results per subgroup for Cpk (within-subgroup SD), at least 2." }.StrictWhole("5");
 
     private Lumen.Uncertainty.UncertaintyModel? _model;
     private Lumen.Uncertainty.MonteCarloOptions _run = new();

@@ -9,7 +9,7 @@ internal static class CommonOptions
 {
     /// <summary>The --threads option: worker threads, default all cores.</summary>
     /// <returns>A new option.</returns>
-    public static Option<int> Threads() => new("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount };
+    public static Option<int> Threads() => new Option<int>("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount }.Strict("4");
 
     /// <summary>A <c>--format</c> option accepting <paramref name="formats"/> (the first is the default).</summary>
     public static Option<string> Format(params string[] formats)
@@ -48,6 +48,33 @@ internal static class CommonOptions
     public static Option<double?> Strict(this Option<double?> option)
     {
         option.CustomParser = r => ParseNumber(r);
+        return option;
+    }
+
+    private static T ParseWhole<T>(System.CommandLine.Parsing.ArgumentResult r, string example) where T : struct, System.Numerics.IBinaryInteger<T>
+    {
+        var token = r.Tokens.Count > 0 ? r.Tokens[^1].Value : "";
+        if (T.TryParse(token, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out T v)) return v;
+        string what = r.Parent is System.CommandLine.Parsing.OptionResult o ? o.Option.Name : r.Argument.Name;
+        r.AddError($"{what}: '{token}' is not a whole number; expected digits only, e.g. {example}.");
+        return default;
+    }
+
+    /// <summary>Makes a whole-number option give Lumen's message for a bad value (not the parser's, which names a .NET type).</summary>
+    /// <param name="option">The option.</param>
+    /// <param name="example">A good value to show.</param>
+    public static Option<T> Strict<T>(this Option<T> option, string example) where T : struct, System.Numerics.IBinaryInteger<T>
+    {
+        option.CustomParser = r => ParseWhole<T>(r, example);
+        return option;
+    }
+
+    /// <summary>Makes an optional whole-number option give Lumen's message for a bad value.</summary>
+    /// <param name="option">The option.</param>
+    /// <param name="example">A good value to show.</param>
+    public static Option<T?> StrictWhole<T>(this Option<T?> option, string example) where T : struct, System.Numerics.IBinaryInteger<T>
+    {
+        option.CustomParser = r => ParseWhole<T>(r, example);
         return option;
     }
 

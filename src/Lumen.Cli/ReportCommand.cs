@@ -17,7 +17,7 @@ internal sealed class ReportCommand(TextReader stdin, TextWriter stdout, TextWri
     public Option<string> Diagram { get; } = new("--diagram") { Description = "Chromaticity diagram of the report: uv (CIE 1976 u'v', default) or xy (CIE 1931).", DefaultValueFactory = _ => "uv" };
     public Option<string> Paper { get; } = new("--paper") { Description = "Page size of the print layout: a4 (default) or letter.", DefaultValueFactory = _ => "a4" };
     public Option<string?> GroupBy { get; } = new("--group-by") { Description = "Batch report: a summary per value of this metadata column, and the subgroups of Cpk." };
-    public Option<int?> SubgroupSize { get; } = new("--subgroup-size") { Description = "Batch report: consecutive results per subgroup for Cpk, at least 2." };
+    public Option<int?> SubgroupSize { get; } = new Option<int?>("--subgroup-size") { Description = "Batch report: consecutive results per subgroup for Cpk, at least 2." }.StrictWhole("5");
 
     public Command Build()
     {

@@ -15,7 +15,7 @@ namespace Lumen.Cli;
 internal sealed class SpecOptions(bool required)
 {
     public Option<string?> Spec { get; } = new("--spec") { Description = "Tolerance specification (JSON; see examples/batch/spec-dl30.json)." };
-    public Option<int?> NominalCct { get; } = new("--nominal-cct") { Description = "Target: an ANSI C78.377 nominal CCT category, K (e.g. 3000)." };
+    public Option<int?> NominalCct { get; } = new Option<int?>("--nominal-cct") { Description = "Target: an ANSI C78.377 nominal CCT category, K (e.g. 3000)." }.StrictWhole("3000");
     public Option<string?> TargetXy { get; } = new("--target-xy") { Description = "Target: a CIE 1931 chromaticity 'x,y'." };
     public Option<double?> TargetCct { get; } = new Option<double?>("--target-cct") { Description = "Target: a CCT in K (with --target-duv, default 0)." }.Strict();
     public Option<double> TargetDuv { get; } = new Option<double>("--target-duv") { Description = "Target Duv with --target-cct.", DefaultValueFactory = _ => 0 }.Strict();

@@ -13,8 +13,8 @@ namespace Lumen.Cli;
 internal sealed class UncertaintyOptions
 {
     public Option<string?> Model { get; } = new("--uncertainty") { Description = "Uncertainty model (JSON: relativeNoise, absoluteNoise, relativeScale, smoothRelative, wavelengthShiftNm): propagate it to every result by Monte Carlo (JCGM 101)." };
-    public Option<int> Draws { get; } = new("--draws") { Description = "Monte Carlo draws per spectrum (with --adaptive: per block). Default 10000.", DefaultValueFactory = _ => 10_000 };
-    public Option<ulong> Seed { get; } = new("--seed") { Description = "Seed of the draws: the same seed gives the same output on any number of threads. Default 1.", DefaultValueFactory = _ => 1UL };
+    public Option<int> Draws { get; } = new Option<int>("--draws") { Description = "Monte Carlo draws per spectrum (with --adaptive: per block). Default 10000.", DefaultValueFactory = _ => 10_000 }.Strict("10000");
+    public Option<ulong> Seed { get; } = new Option<ulong>("--seed") { Description = "Seed of the draws: the same seed gives the same output on any number of threads. Default 1.", DefaultValueFactory = _ => 1UL }.Strict("42");
     public Option<bool> Adaptive { get; } = new("--adaptive") { Description = "Add blocks of draws until each standard uncertainty and interval is stable to two significant digits (JCGM 101 §7.9)." };
     public Option<string> Decision { get; } = new("--decision") { Description = "Decision rule of the verdicts: simple (default) or guarded (pass/fail only beyond the expanded uncertainty; otherwise inconclusive; needs --uncertainty).", DefaultValueFactory = _ => "simple" };
 
