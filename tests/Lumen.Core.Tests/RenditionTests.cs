@@ -304,26 +304,4 @@ public class FastPathTests
             Assert.Equal(SpectralSum.DotScalar(b, wy), tb.Y, 10);
         }
     }
-
-    [Fact]
-    public void Batched_cam02ucs_equals_scalar_forward_then_ucs()
-    {
-        var cam = new Ciecam02(96.4, 100, 82.5, ViewingConditions.Cie224);
-        var rng = new Random(9);
-        int n = 99;
-        var x = Enumerable.Range(0, n).Select(_ => 5 + 60 * rng.NextDouble()).ToArray();
-        var y = Enumerable.Range(0, n).Select(_ => 5 + 60 * rng.NextDouble()).ToArray();
-        var z = Enumerable.Range(0, n).Select(_ => 5 + 60 * rng.NextDouble()).ToArray();
-        double[] j = new double[n], a = new double[n], b = new double[n], h = new double[n];
-        cam.ForwardUcs(x, y, z, j, a, b, h);
-        for (int i = 0; i < n; i++)
-        {
-            var c = cam.Forward(x[i], y[i], z[i]);
-            var (jj, aa, bb) = c.ToUcs();
-            Assert.Equal(jj, j[i], 9);
-            Assert.Equal(aa, a[i], 9);
-            Assert.Equal(bb, b[i], 9);
-            Assert.Equal(c.HueDegrees, h[i], 9);
-        }
-    }
 }
