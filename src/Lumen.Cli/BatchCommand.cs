@@ -29,9 +29,6 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     private Lumen.Uncertainty.DecisionRule _rule;
     private MetricGroups _extraMetrics = MetricGroups.Colorimetry;
 
-    /// <summary>Records computed per parallel chunk (input order is kept).</summary>
-    internal const int ChunkSize = RecordBlocks.ChunkSize;
-
     /// <summary>Most rows of the terminal table, and most passing rows among them.</summary>
     private const int TerminalRowLimit = 200, TerminalPassRows = 20;
 
@@ -215,12 +212,12 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
             try
             {
                 // This thread reads lines; each row's numbers are parsed on the compute threads (issue 16).
-                var chunk = new List<Func<InputRecord>>(ChunkSize);
+                var chunk = new List<Func<InputRecord>>(RecordBlocks.ChunkSize);
                 foreach (var record in inputs.Deferred(stdin, progress))
                 {
                     if (interrupt.IsCancellationRequested) break; // stop reading; what is in flight is still written
                     chunk.Add(record);
-                    if (chunk.Count == ChunkSize) { toCompute.Add(chunk); chunk = new List<Func<InputRecord>>(ChunkSize); }
+                    if (chunk.Count == RecordBlocks.ChunkSize) { toCompute.Add(chunk); chunk = new List<Func<InputRecord>>(RecordBlocks.ChunkSize); }
                 }
                 if (chunk.Count > 0) toCompute.Add(chunk);
             }
