@@ -8,7 +8,7 @@ using Lumen.Temperature;
 namespace Lumen.Cli;
 
 /// <summary><c>lumen analyze INPUT...</c>: every result for every spectrum. Parse options → assess each record → write.</summary>
-internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWriter stderr)
+internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWriter stderr, CancellationToken interrupt = default)
 {
     private readonly InputOptions _inputs = new();
     private readonly SpecOptions _spec = new(required: false);
@@ -99,7 +99,7 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
         bool anyError = false, anyFail = false, anyInconclusive = false;
         // Records in parallel blocks (issue 16); with an uncertainty model, one record at a time and its draws on all cores.
         int threads = model is null ? Math.Max(1, parse.GetValue(ThreadsOption)) : 1;
-        IEnumerable<RecordOutcome> Outcomes() => RecordBlocks.Stream(inputs.Deferred(stdin), options, spec, o => UncertaintyOptions.Propagate(o, options, spec, model, run, rule), threads);
+        IEnumerable<RecordOutcome> Outcomes() => RecordBlocks.Stream(inputs.Deferred(stdin), options, spec, o => UncertaintyOptions.Propagate(o, options, spec, model, run, rule), threads, interrupt);
         RecordOutcome Next(RecordOutcome outcome)
         {
             CommonOptions.ReportError(stderr, outcome.Error);
@@ -109,15 +109,26 @@ internal sealed class AnalyzeCommand(TextReader stdin, TextWriter stdout, TextWr
             return outcome;
         }
         // JSON and CSV stream record by record (flat memory); the text table is sized from all rows.
+        // Ctrl+C / SIGTERM: no further record is read; what was computed is written (to FILE.partial for a file).
+        long written = 0;
+        RecordOutcome Counted(RecordOutcome o) { written++; return Next(o); }
         string? failure = format == OutputFormat.Text
-            ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(Outcomes().Select(Next).ToList(), format, w, parse.GetValue(DetailOption)))
+            ? OutputTarget.WriteText(outPath, stdout, w => AnalysisWriter.Write(Outcomes().Select(Counted).ToList(), format, w, parse.GetValue(DetailOption)),
+                partial: () => interrupt.IsCancellationRequested)
             : OutputTarget.WriteText(outPath, stdout, w =>
             {
                 var writer = new AnalysisStreamWriter(w, format, withVerdict: spec is not null, spec: spec, withUncertainty: model is not null);
-                foreach (var outcome in Outcomes()) writer.Write(Next(outcome));
+                foreach (var outcome in Outcomes()) writer.Write(Counted(outcome));
                 writer.Complete();
-            });
+            }, partial: () => interrupt.IsCancellationRequested);
         if (failure is not null) return CommonOptions.OutputFailed(stderr, failure);
+        if (interrupt.IsCancellationRequested)
+        {
+            bool toStdout = OutputTarget.IsStdout(outPath);
+            stderr.WriteLine($"lumen: interrupted: {written:N0} records were written to {(toStdout ? "standard output" : $"'{OutputTarget.PartialPath(outPath!)}'")}; "
+                + (toStdout ? "" : $"'{outPath}' was not changed. ") + "Run the analysis again to get the complete results.");
+            return ExitCodes.Interrupted;
+        }
         if (spec is not null && format == OutputFormat.Text && OutputTarget.IsStdout(outPath))
         {
             if (spec.TargetDescription is { } target) stdout.WriteLine($"Specification: {spec.Spec.Description}. Target: {target}.");

@@ -18,7 +18,7 @@ public static class LumenApp
     /// <param name="stdout">Results.</param>
     /// <param name="stderr">Diagnostics.</param>
     /// <param name="stderrIsTerminal">True when standard error is a terminal (progress lines are shown then).</param>
-    /// <param name="interrupt">Cancelled on SIGINT or SIGTERM: a batch then stops reading and keeps what it computed.</param>
+    /// <param name="interrupt">Cancelled on SIGINT or SIGTERM: analyze and batch then stop reading and keep what they computed.</param>
     /// <param name="stdoutIsTerminal">True when standard output is a terminal (a batch then prints a readable verdict table instead of CSV).</param>
     /// <returns>An exit code from <see cref="ExitCodes"/>.</returns>
     public static int Run(string[] args, TextReader stdin, TextWriter stdout, TextWriter stderr, bool stderrIsTerminal = false, CancellationToken interrupt = default, bool stdoutIsTerminal = false)
@@ -31,7 +31,7 @@ public static class LumenApp
         CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
         CultureInfo.CurrentUICulture = CultureInfo.InvariantCulture;
         var root = new RootCommand("lumen — colorimetry, CCT/Duv and colour quality of measured light-source spectra.\n" + ExitCodes.Legend);
-        root.Subcommands.Add(new AnalyzeCommand(stdin, stdout, stderr).Build());
+        root.Subcommands.Add(new AnalyzeCommand(stdin, stdout, stderr, interrupt).Build());
         root.Subcommands.Add(new BlackbodyCommand(stdout, stderr).Build());
         root.Subcommands.Add(new FitCommand(stdin, stdout, stderr).Build());
         root.Subcommands.Add(new BatchCommand(stdin, stdout, stderr, stderrIsTerminal, interrupt, stdoutIsTerminal).Build());

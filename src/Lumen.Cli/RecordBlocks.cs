@@ -43,12 +43,14 @@ internal static class RecordBlocks
     /// <param name="spec">The specification, or null.</param>
     /// <param name="then">Applied to each outcome on its compute thread.</param>
     /// <param name="threads">Most threads to use.</param>
+    /// <param name="interrupt">When cancelled, no further record is read; the records already taken are still computed.</param>
     /// <returns>The outcomes, streamed.</returns>
-    public static IEnumerable<RecordOutcome> Stream(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads)
+    public static IEnumerable<RecordOutcome> Stream(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads, CancellationToken interrupt = default)
     {
         var chunk = new List<Func<InputRecord>>(ChunkSize);
         foreach (var item in deferred)
         {
+            if (interrupt.IsCancellationRequested) break;
             chunk.Add(item);
             if (chunk.Count < ChunkSize) continue;
             foreach (var o in Compute(chunk, options, spec, then, threads)) yield return o;

@@ -193,6 +193,27 @@ public sealed class HostileInputTests : IDisposable
     }
 
     [Fact]
+    public void An_interrupted_analysis_keeps_the_previous_results_and_writes_a_parsable_partial_file()
+    {
+        var input = Write("many.csv", RowFile(50));
+        foreach (var ext in new[] { ".csv", ".json" })
+        {
+            var results = Path.Combine(_dir, "a" + ext);
+            File.WriteAllText(results, "previous complete results");
+            var e = new StringWriter();
+            using var cts = new CancellationTokenSource();
+            cts.Cancel(); // the signal arrives before the first record is read
+            int code = LumenApp.Run(["analyze", input, "--format", ext[1..], "-o", results], TextReader.Null, new StringWriter(), e, false, cts.Token);
+            Assert.Equal(ExitCodes.Interrupted, code);
+            Assert.Equal("previous complete results", File.ReadAllText(results));
+            var partial = File.ReadAllText(results + ".partial");
+            if (ext == ".json") JsonDocument.Parse(partial).Dispose();
+            else Assert.StartsWith("name,source,column,status", partial, StringComparison.Ordinal);
+            Assert.Contains("interrupted", e.ToString(), StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
     public void A_typo_in_a_row_layout_header_is_an_error_at_its_column()
     {
         var header = "id," + string.Join(',', Enumerable.Range(0, 81).Select(i => i == 24 ? "5OO" : (380 + 5 * i).ToString(CultureInfo.InvariantCulture)));
