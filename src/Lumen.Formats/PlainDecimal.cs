@@ -7,39 +7,78 @@ internal static class PlainDecimal
 {
     private static readonly double[] PowersOfTen = [1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
 
+    /// <summary>Largest integer below which every integer is a double (2^53).</summary>
+    private const ulong ExactIntegers = 1UL << 53;
+
     /// <summary>
-    /// The common plain decimal (optional sign, digits, optional point and digits, at most 15 significant digits;
-    /// no exponent, no other character) by Clinger's exact fast path: an integer below 2^53 divided by an exact power
-    /// of ten (≤ 10^22) is one correctly rounded IEEE division, so the value is the very double that
-    /// <see cref="double.TryParse(ReadOnlySpan{char}, NumberStyles, IFormatProvider?, out double)"/> gives. Anything
-    /// else returns false and goes to the general parser.
+    /// The common decimal of spectral files (optional sign, digits, optional point and digits, optional exponent of up to
+    /// four digits; no other character) by Clinger's exact fast path (W. D. Clinger, "How to read floating point numbers
+    /// accurately", PLDI 1990): when its digits, read as an integer m, are below 2^53 and its value is m·10^p with
+    /// |p| ≤ 22, both m and 10^p are exact doubles and one IEEE division or multiplication rounds correctly, so the value
+    /// is the very double that <see cref="double.TryParse(ReadOnlySpan{char}, NumberStyles, IFormatProvider?, out double)"/>
+    /// gives. Anything else returns false and goes to the general parser.
     /// </summary>
-    public static bool TryParse(ReadOnlySpan<char> cell, out double value)
+    public static bool TryParse(ReadOnlySpan<char> cell, out double value) =>
+        TryParseCell(cell, '\uFFFF', out value, out int length) && length == cell.Length;
+
+    /// <summary>
+    /// <see cref="TryParse"/> on the start of <paramref name="text"/> up to the first <paramref name="delimiter"/> (or its
+    /// end), in one pass: for a row parser that reads a number and finds the end of its cell together. False when the cell
+    /// is anything but a plain decimal running exactly to the delimiter (spaces, quotes, an exponent, a decimal comma…):
+    /// the caller then takes the general path for that cell.
+    /// </summary>
+    /// <param name="text">The rest of a row, from the first character of a cell.</param>
+    /// <param name="delimiter">The cell delimiter.</param>
+    /// <param name="value">The number.</param>
+    /// <param name="length">Characters of the cell (the delimiter, if any, is at this index).</param>
+    public static bool TryParseCell(ReadOnlySpan<char> text, char delimiter, out double value, out int length)
     {
         value = 0;
-        int i = 0;
+        length = 0;
+        int i = 0, n = text.Length;
         bool negative = false;
-        if (cell.Length > 0 && (cell[0] == '-' || cell[0] == '+')) { negative = cell[0] == '-'; i = 1; }
-        long mantissa = 0;
-        int digits = 0, fraction = 0;
-        bool point = false, any = false;
-        for (; i < cell.Length; i++)
+        if (n > 0 && (text[0] == '-' || text[0] == '+')) { negative = text[0] == '-'; i = 1; }
+        ulong mantissa = 0;
+        int digitsFrom = i;
+        uint c = 0;
+        // Below 2^53 before a digit, below 2^57 after it: no overflow; at or above 2^53 it can only grow, so decline.
+        while (i < n && (c = (uint)(text[i] - '0')) <= 9)
         {
-            char c = cell[i];
-            if (c >= '0' && c <= '9')
-            {
-                any = true;
-                if (mantissa == 0 && c == '0') { if (point) fraction++; continue; } // leading zeros are not significant
-                if (++digits > 15) return false;
-                mantissa = mantissa * 10 + (c - '0');
-                if (point) fraction++;
-            }
-            else if (c == '.' && !point) point = true;
-            else return false;
+            if (mantissa >= ExactIntegers) return false;
+            mantissa = mantissa * 10 + c;
+            i++;
         }
-        if (!any || fraction > 22) return false;
-        value = mantissa / PowersOfTen[fraction];
-        if (negative) value = -value;
+        int digits = i - digitsFrom, fraction = 0;
+        if (i < n && text[i] == '.')
+        {
+            int from = ++i;
+            while (i < n && (c = (uint)(text[i] - '0')) <= 9)
+            {
+                if (mantissa >= ExactIntegers) return false;
+                mantissa = mantissa * 10 + c;
+                i++;
+            }
+            fraction = i - from;
+        }
+        if (digits + fraction == 0 || mantissa >= ExactIntegers) return false;
+        int power = -fraction;
+        if (i < n && (text[i] | 0x20) == 'e')
+        {
+            // An exponent (1.5E-03, as many instruments write): one to four digits, optional sign.
+            bool minus = false;
+            if (++i < n && (text[i] == '-' || text[i] == '+')) { minus = text[i] == '-'; i++; }
+            int from = i, exponent = 0;
+            while (i < n && (c = (uint)(text[i] - '0')) <= 9 && i - from < 4) { exponent = exponent * 10 + (int)c; i++; }
+            if (i == from) return false;
+            power += minus ? -exponent : exponent;
+        }
+        if (i < n && text[i] != delimiter) return false;
+        // The integer is exact (below 2^53) and so is the power of ten (at most 10^22): one correctly rounded operation.
+        double v;
+        if (power < 0) { if (power < -22) return false; v = mantissa / PowersOfTen[-power]; }
+        else { if (power > 22) return false; v = mantissa * PowersOfTen[power]; }
+        value = negative ? -v : v;
+        length = i;
         return true;
     }
 }

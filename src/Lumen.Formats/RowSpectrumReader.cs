@@ -259,6 +259,16 @@ public static class RowSpectrumReader
                 }
                 else
                 {
+                    int v = cell - _idColumns;
+                    if (v >= 0 && v < values.Length && PlainDecimal.TryParseCell(text[pos..], _d, out values[v], out int length))
+                    {
+                        // The common cell: a plain decimal running exactly to the delimiter, read in one pass (no search,
+                        // no trimming: there is nothing to trim). Anything else takes the general steps below.
+                        pos += length + 1;
+                        cell++;
+                        if (pos > text.Length) break; // that was the last cell
+                        continue;
+                    }
                     start = pos;
                     int at = text[pos..].IndexOf(_d);
                     end = at < 0 ? text.Length : pos + at;

@@ -27,6 +27,16 @@ public class PlainDecimalTests
     [InlineData("1234567.89012345")]
     [InlineData("0.0000000000000000000001")]
     [InlineData("900719925474.099")]
+    [InlineData("9007199254740991")] // 2^53 - 1: the largest exact integer (16 digits)
+    [InlineData("-0.000000000000000000000")]
+    [InlineData("1e5")]
+    [InlineData("1E-3")]
+    [InlineData("1.234E-03")]
+    [InlineData("-6.02e+2")]
+    [InlineData("1.e5")]
+    [InlineData(".5e1")]
+    [InlineData("1e22")]
+    [InlineData("1e-22")]
     public void Plain_decimals_equal_the_general_parser_bit_for_bit(string text)
     {
         Assert.True(PlainDecimal.TryParse(text, out double fast));
@@ -38,9 +48,17 @@ public class PlainDecimalTests
     [InlineData("")]
     [InlineData("-")]
     [InlineData(".")]
-    [InlineData("1e5")]
-    [InlineData("1E-3")]
-    [InlineData("1234567890123456")] // 16 significant digits: beyond the exact path
+    [InlineData("1e")]
+    [InlineData("1e+")]
+    [InlineData("e5")]
+    [InlineData("1e5.0")]
+    [InlineData("1e00001")] // five exponent digits
+    [InlineData("1e23")] // 10^23 is not an exact double
+    [InlineData("1.5e-23")] // 15·10^-24: beyond 10^22
+    [InlineData("123456789e-30")]
+    [InlineData("0e-400")]
+    [InlineData("9007199254740993")] // 2^53 + 1: its digits are not an exact double
+    [InlineData("12345678901234567890")] // 20 digits: beyond 64 bits
     [InlineData("0.00000000000000000000001")] // 23 decimals: beyond 10^22
     [InlineData("1.2.3")]
     [InlineData("1,5")]
@@ -51,7 +69,7 @@ public class PlainDecimalTests
     public void Anything_else_goes_to_the_general_parser(string text) => Assert.False(PlainDecimal.TryParse(text, out _));
 
     [Fact]
-    public void Random_decimals_of_every_length_and_scale_equal_the_general_parser()
+    public void Random_decimals_of_every_length_scale_and_exponent_equal_the_general_parser()
     {
         var rng = new Random(16);
         int taken = 0;
@@ -62,6 +80,7 @@ public class PlainDecimalTests
             for (int i = 0; i < digits; i++) chars[i] = (char)('0' + rng.Next(10));
             string body = new string(chars);
             string text = (rng.Next(4) == 0 ? "-" : "") + (point == digits ? body : body[..point] + "." + new string('0', zeros) + body[point..]);
+            if (rng.Next(3) == 0) text += (rng.Next(2) == 0 ? "e" : "E") + (rng.Next(3) switch { 0 => "-", 1 => "+", _ => "" }) + rng.Next(0, 40).ToString(CultureInfo.InvariantCulture);
             double general = double.Parse(text, NumberStyles.Float, CultureInfo.InvariantCulture);
             if (!PlainDecimal.TryParse(text, out double fast)) continue;
             taken++;
