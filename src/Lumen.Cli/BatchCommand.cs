@@ -1,4 +1,3 @@
-using System.Collections.Concurrent;
 using System.CommandLine;
 using System.Diagnostics;
 using System.Globalization;
@@ -194,77 +193,33 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
     {
         var options = new AssessmentOptions(Metrics: spec.RequiredMetrics | _extraMetrics);
         var clock = Stopwatch.StartNew();
-        long done = 0;
+        long done = 0, nextProgressMs = 0;
         var progress = new ReadProgress();
         long totalBytes = inputs.Files.Where(File.Exists).Sum(f => new FileInfo(f).Length);
-        var po = new ParallelOptions { MaxDegreeOfParallelism = threads };
 
-        // Three stages: a reader task fills chunks ahead, this thread computes each chunk in parallel, and a
-        // writer task writes rows and feeds the summary in input order. Queues are bounded (a few chunks in
-        // flight), so memory stays flat; writing overlaps computing of the next chunk.
-        using var toCompute = new BlockingCollection<List<Func<InputRecord>>>(4);
-        using var toWrite = new BlockingCollection<RecordOutcome[]>(2);
-        // Reader and writer block on their queues most of the time: they get threads of their own (LongRunning), so
-        // the pool's workers stay free for the parallel compute (on a 2-core machine the pool starts with 2 workers, and
-        // two blocked stages would leave the compute one thread until the pool grows).
-        var reader = Task.Factory.StartNew(() =>
-        {
-            try
-            {
-                // This thread reads lines; each row's numbers are parsed on the compute threads (issue 16).
-                var chunk = new List<Func<InputRecord>>(RecordBlocks.ChunkSize);
-                foreach (var record in inputs.Deferred(stdin, progress))
-                {
-                    if (interrupt.IsCancellationRequested) break; // stop reading; what is in flight is still written
-                    chunk.Add(record);
-                    if (chunk.Count == RecordBlocks.ChunkSize) { toCompute.Add(chunk); chunk = new List<Func<InputRecord>>(RecordBlocks.ChunkSize); }
-                }
-                if (chunk.Count > 0) toCompute.Add(chunk);
-            }
-            finally { toCompute.CompleteAdding(); }
-        }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
-        void WriteChunk(RecordOutcome[] items)
-        {
-            foreach (var item in items)
-            {
-                writer.Write(item);
-                builder.Add(item);
-                observe?.Invoke(item);
-                CommonOptions.ReportError(stderr, item.Error);
-            }
-            done += items.Length;
-            if (stderrIsTerminal)
-            {
-                double rate = done / Math.Max(1e-9, clock.Elapsed.TotalSeconds);
-                // ETA from the share of input bytes consumed (the reader runs a few chunks ahead, so it is slightly optimistic).
-                double share = totalBytes > 0 ? Math.Clamp((double)progress.Bytes / totalBytes, 1e-6, 1) : 1;
-                var eta = TimeSpan.FromSeconds(clock.Elapsed.TotalSeconds * (1 / share - 1));
-                stderr.Write(string.Create(CultureInfo.InvariantCulture, $"\r{done:N0} records, {rate:N0}/s, {clock.Elapsed:mm\\:ss} elapsed, about {eta:mm\\:ss} to go   "));
-            }
-        }
-
+        // A reader thread, worker threads and this one, which writes rows and feeds the summary in input order while
+        // the next blocks are computed (RecordBlocks). Memory stays flat.
         Exception? writeFailure = null;
-        var writerTask = Task.Factory.StartNew(() =>
+        foreach (var item in RecordBlocks.Stream(inputs.Deferred(stdin, progress), options, spec, o => UncertaintyOptions.Propagate(o, options, spec, _model, _run, _rule), threads, interrupt))
         {
-            foreach (var items in toWrite.GetConsumingEnumerable())
-            {
-                if (writeFailure is not null) continue; // keep draining so the computing stage never blocks
-                try { WriteChunk(items); }
-                catch (Exception ex) when (ex is IOException or UnauthorizedAccessException) { writeFailure = ex; }
-            }
-        }, CancellationToken.None, TaskCreationOptions.LongRunning, TaskScheduler.Default);
-        try
-        {
-            foreach (var chunk in toCompute.GetConsumingEnumerable())
-            {
-                var results = RecordBlocks.Compute(chunk, options, spec, o => UncertaintyOptions.Propagate(o, options, spec, _model, _run, _rule), threads);
-                toWrite.Add(results);
-            }
+            try { writer.Write(item); }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException) { writeFailure = ex; break; } // stops the reader and the workers
+            builder.Add(item);
+            observe?.Invoke(item);
+            CommonOptions.ReportError(stderr, item.Error);
+            if (++done % RecordBlocks.BlockSize == 0 && stderrIsTerminal) ShowProgress();
         }
-        finally { toWrite.CompleteAdding(); }
-        reader.GetAwaiter().GetResult();
-        writerTask.GetAwaiter().GetResult();
         if (writeFailure is not null) throw new BatchWriteException($"writing the results failed: {writeFailure.Message}", writeFailure);
+        void ShowProgress()
+        {
+            if (clock.ElapsedMilliseconds < nextProgressMs) return;
+            nextProgressMs = clock.ElapsedMilliseconds + 200;
+            double rate = done / Math.Max(1e-9, clock.Elapsed.TotalSeconds);
+            // ETA from the share of input bytes consumed (the reader runs a few blocks ahead, so it is slightly optimistic).
+            double share = totalBytes > 0 ? Math.Clamp((double)progress.Bytes / totalBytes, 1e-6, 1) : 1;
+            var eta = TimeSpan.FromSeconds(clock.Elapsed.TotalSeconds * (1 / share - 1));
+            stderr.Write(string.Create(CultureInfo.InvariantCulture, $"\r{done:N0} records, {rate:N0}/s, {clock.Elapsed:mm\\:ss} elapsed, about {eta:mm\\:ss} to go   "));
+        }
         if (stderrIsTerminal) stderr.WriteLine();
         return builder.Build();
     }

@@ -1,61 +1,141 @@
+using System.Collections.Concurrent;
+using System.Runtime.ExceptionServices;
 using Lumen.Analysis;
 using Lumen.Conformance;
 
 namespace Lumen.Cli;
 
 /// <summary>
-/// How analyze and batch compute records: chunks in input order, each chunk in blocks of <see cref="BlockSize"/> on all
-/// cores; a block's rows are parsed and its rendition indices computed together (<see cref="RecordOutcome.OfMany"/>).
+/// How analyze and batch compute records (issue 16): a reader thread cuts the input into blocks of
+/// <see cref="BlockSize"/> records, worker threads parse and assess whole blocks (<see cref="RecordOutcome.OfMany"/>:
+/// one rendition pass per block), and the caller receives the outcomes in input order while the next blocks are being
+/// read and computed.
 /// </summary>
+/// <remarks>
+/// Workers take blocks one after another with no barrier between groups of blocks (a chunk-at-a-time loop left a core
+/// idle at the end of every chunk), and at most <see cref="BlocksInFlightPerThread"/> blocks per worker are in flight,
+/// so memory stays flat and little survives a garbage collection (the collector copies what is alive: holding thousands
+/// of parsed spectra in queues made every collection cost tens of milliseconds). A record's outcome does not depend on
+/// the thread that computed it or on its block, so the output is the same for any thread count.
+/// </remarks>
 internal static class RecordBlocks
 {
-    /// <summary>Records computed per parallel chunk (input order is kept).</summary>
-    public const int ChunkSize = 512;
-
-    /// <summary>Records assessed together (one rendition block, issue 16): 16 spectra share each pass over the sample weights.</summary>
+    /// <summary>Records assessed together (one rendition block): 16 spectra share each pass over the sample weights.</summary>
     public const int BlockSize = 16;
 
-    /// <summary>Parses, assesses and judges one chunk on up to <paramref name="threads"/> cores.</summary>
-    /// <param name="chunk">Deferred records (each parses its row when called).</param>
-    /// <param name="options">What to compute.</param>
-    /// <param name="spec">The specification, or null.</param>
-    /// <param name="then">Applied to each outcome on its compute thread (e.g. the uncertainty of its results).</param>
-    /// <param name="threads">Most threads to use.</param>
-    /// <returns>The outcomes, in the chunk's order.</returns>
-    public static RecordOutcome[] Compute(IReadOnlyList<Func<InputRecord>> chunk, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads)
-    {
-        var results = new RecordOutcome[chunk.Count];
-        int blocks = (chunk.Count + BlockSize - 1) / BlockSize;
-        Parallel.For(0, blocks, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, threads) }, b =>
-        {
-            int from = b * BlockSize, to = Math.Min(chunk.Count, from + BlockSize);
-            var records = new InputRecord[to - from];
-            for (int i = from; i < to; i++) records[i - from] = chunk[i]();
-            var outcomes = RecordOutcome.OfMany(records, options, spec);
-            for (int i = from; i < to; i++) results[i] = then(outcomes[i - from]);
-        });
-        return results;
-    }
+    /// <summary>Blocks read ahead per worker thread (work queued while the caller writes).</summary>
+    public const int BlocksInFlightPerThread = 4;
 
-    /// <summary>Every record's outcome, in input order, computed a chunk at a time on all cores (memory stays flat).</summary>
-    /// <param name="deferred">Deferred records.</param>
+    /// <summary>Every record's outcome, in input order, computed on <paramref name="threads"/> worker threads.</summary>
+    /// <param name="deferred">Deferred records (each parses its row when called, on a worker).</param>
     /// <param name="options">What to compute.</param>
     /// <param name="spec">The specification, or null.</param>
-    /// <param name="then">Applied to each outcome on its compute thread.</param>
-    /// <param name="threads">Most threads to use.</param>
-    /// <param name="interrupt">When cancelled, no further record is read; the records already taken are still computed.</param>
-    /// <returns>The outcomes, streamed.</returns>
+    /// <param name="then">Applied to each outcome on its worker (e.g. the uncertainty of its results).</param>
+    /// <param name="threads">Worker threads (at least one).</param>
+    /// <param name="interrupt">When cancelled, no further record is read; the records already read are still computed and returned.</param>
+    /// <returns>The outcomes, streamed. Stopping the enumeration early stops the reader and the workers.</returns>
     public static IEnumerable<RecordOutcome> Stream(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads, CancellationToken interrupt = default)
     {
-        var chunk = new List<Func<InputRecord>>(ChunkSize);
-        foreach (var item in deferred)
+        ArgumentNullException.ThrowIfNull(deferred);
+        threads = Math.Max(1, threads);
+        using var stop = new CancellationTokenSource();
+        using var inOrder = new BlockingCollection<Block>(BlocksInFlightPerThread * threads);
+        using var toCompute = new BlockingCollection<Block>();
+        Exception? readFailure = null;
+
+        var reader = new Thread(() =>
         {
-            if (interrupt.IsCancellationRequested) break;
-            chunk.Add(item);
-            if (chunk.Count < ChunkSize) continue;
-            foreach (var o in Compute(chunk, options, spec, then, threads)) yield return o;
-            chunk.Clear();
+            var items = new List<Func<InputRecord>>(BlockSize);
+            void Send()
+            {
+                var block = new Block([.. items]);
+                items.Clear();
+                inOrder.Add(block, stop.Token); // waits while the window is full
+                toCompute.Add(block);
+            }
+            try
+            {
+                try
+                {
+                    foreach (var item in deferred)
+                    {
+                        if (interrupt.IsCancellationRequested || stop.IsCancellationRequested) break;
+                        items.Add(item);
+                        if (items.Count == BlockSize) Send();
+                    }
+                }
+                catch (Exception ex) when (!stop.IsCancellationRequested)
+                {
+                    readFailure = ex; // after the records read before it
+                }
+                if (items.Count > 0 && !stop.IsCancellationRequested) Send();
+            }
+            catch (OperationCanceledException) when (stop.IsCancellationRequested) { }
+            finally
+            {
+                toCompute.CompleteAdding();
+                inOrder.CompleteAdding();
+            }
+        }) { IsBackground = true, Name = "lumen reader" };
+
+        var workers = new Thread[threads];
+        for (int t = 0; t < threads; t++)
+        {
+            workers[t] = new Thread(() =>
+            {
+                foreach (var block in toCompute.GetConsumingEnumerable())
+                {
+                    try
+                    {
+                        if (!stop.IsCancellationRequested) block.Results = Compute(block.Items, options, spec, then);
+                    }
+                    catch (Exception ex) { block.Failure = ex; }
+                    finally { block.Done.Set(); }
+                }
+            }) { IsBackground = true, Name = $"lumen worker {t + 1}" };
         }
-        if (chunk.Count > 0) foreach (var o in Compute(chunk, options, spec, then, threads)) yield return o;
+
+        reader.Start();
+        foreach (var w in workers) w.Start();
+        try
+        {
+            foreach (var block in inOrder.GetConsumingEnumerable())
+            {
+                block.Done.Wait();
+                block.Done.Dispose();
+                if (block.Failure is { } failure) ExceptionDispatchInfo.Throw(failure);
+                foreach (var outcome in block.Results!) yield return outcome;
+            }
+            if (readFailure is not null) ExceptionDispatchInfo.Throw(readFailure);
+        }
+        finally
+        {
+            stop.Cancel(); // an early stop: the reader stops adding, the workers skip what is left
+            reader.Join();
+            foreach (var w in workers) w.Join();
+        }
+    }
+
+    /// <summary>Parses, assesses and judges one block on the calling thread.</summary>
+    private static RecordOutcome[] Compute(Func<InputRecord>[] items, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then)
+    {
+        var records = new InputRecord[items.Length];
+        for (int i = 0; i < items.Length; i++)
+        {
+            records[i] = items[i]();
+            items[i] = null!; // the row's text is garbage once parsed
+        }
+        var outcomes = RecordOutcome.OfMany(records, options, spec);
+        for (int i = 0; i < outcomes.Length; i++) outcomes[i] = then(outcomes[i]);
+        return outcomes;
+    }
+
+    /// <summary>A block of records: its items, then its outcomes once a worker has computed them.</summary>
+    private sealed class Block(Func<InputRecord>[] items)
+    {
+        public Func<InputRecord>[] Items { get; } = items;
+        public RecordOutcome[]? Results { get; set; }
+        public Exception? Failure { get; set; }
+        public ManualResetEventSlim Done { get; } = new(false);
     }
 }
