@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Globalization;
 using Lumen.Analysis;
 using Lumen.Spectra;
@@ -223,7 +224,12 @@ public static class RowSpectrumReader
             _wavelengths = new double[header.Length - idColumns];
             for (int i = 0; i < _wavelengths.Length; i++) DelimitedSpectrumReader.TryParseNumber(header[idColumns + i], d, out _wavelengths[i]);
             _preamble = preamble.Count == 0 ? [] : Preamble.Merge(preamble);
+            // The grid every row shares (checked once); an invalid grid leaves it null, and each row then reports it.
+            try { _grid = new Spectrum(_wavelengths, new double[_wavelengths.Length], unit, "grid", new SpectrumOrigin(source, 0)); }
+            catch (InvalidSpectrumException) { _grid = null; }
         }
+
+        private readonly Spectrum? _grid;
 
         public InputRecord Parse(string row, int ln) => (_spans ? TryParseFast(row, ln) : null) ?? ParseCells(row, ln);
 
@@ -237,7 +243,13 @@ public static class RowSpectrumReader
         private InputRecord? TryParseFast(string row, int ln)
         {
             ReadOnlySpan<char> text = row;
-            var values = new double[_wavelengths.Length];
+            var rented = ArrayPool<double>.Shared.Rent(_wavelengths.Length); // the spectrum keeps its own copy
+            try { return TryParseFast(text, rented.AsSpan(0, _wavelengths.Length), ln); }
+            finally { ArrayPool<double>.Shared.Return(rented); }
+        }
+
+        private InputRecord? TryParseFast(ReadOnlySpan<char> text, Span<double> values, int ln)
+        {
             var idCells = _idColumns == 0 ? [] : new string[_idColumns];
             int cell = 0, pos = 0;
             bool whitespace = _d == ' ';
@@ -304,11 +316,12 @@ public static class RowSpectrumReader
             return double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
         }
 
-        private InputRecord Built(double[] values, string name, int ln, IReadOnlyList<KeyValuePair<string, string>> metadata)
+        private InputRecord Built(ReadOnlySpan<double> values, string name, int ln, IReadOnlyList<KeyValuePair<string, string>> metadata)
         {
             try
             {
-                var s = new Spectrum(_wavelengths, values, _unit, name, new SpectrumOrigin($"{_source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" });
+                var origin = new SpectrumOrigin($"{_source}, line {ln}", 0) { Layout = "row layout (wavelengths in the header row, one spectrum per row)" };
+                var s = _grid is null ? new Spectrum(_wavelengths, values, _unit, name, origin) : new Spectrum(_grid, values, _unit, name, origin);
                 return new SpectrumRecord(_source, 0, name, s) { Line = ln, Metadata = metadata };
             }
             catch (InvalidSpectrumException ex)

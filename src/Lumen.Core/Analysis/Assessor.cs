@@ -1,3 +1,4 @@
+using System.Numerics.Tensors;
 using Lumen.Blackbody;
 using Lumen.Cie;
 using Lumen.Colorimetry;
@@ -179,8 +180,7 @@ public static class Assessor
     /// <returns>The exponent e of the scale 2^e (0 for ordinary values and for a black spectrum).</returns>
     internal static int ScaleExponentOf(Spectrum spectrum)
     {
-        double max = 0;
-        foreach (var v in spectrum.Values) max = Math.Max(max, Math.Abs(v));
+        double max = Math.Abs(TensorPrimitives.MaxMagnitude(spectrum.Values)); // values are finite (checked on construction)
         if (max == 0 || (max >= 1e-18 && max <= 1e18)) return 0;
         return Math.ILogB(max);
     }
@@ -226,8 +226,7 @@ public static class Assessor
     internal static string? NegativeValueWarning(Spectrum spectrum)
     {
         if (spectrum.NegativeSampleCount == 0) return null;
-        double peak = 0, min = 0;
-        foreach (var v in spectrum.Values) { peak = Math.Max(peak, v); min = Math.Min(min, v); }
+        double peak = Math.Max(0, TensorPrimitives.Max(spectrum.Values)), min = Math.Min(0, TensorPrimitives.Min(spectrum.Values));
         return peak > 0 && -min > NegativeWarningFraction * peak
             ? $"{spectrum.NegativeSampleCount} sample(s) below zero, down to {min / peak * 100:0.0} % of the peak: check the dark reference; values kept in the sums, not clipped."
             : null;

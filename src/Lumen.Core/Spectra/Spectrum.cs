@@ -1,3 +1,5 @@
+using System.Numerics;
+
 namespace Lumen.Spectra;
 
 /// <summary>
@@ -46,13 +48,76 @@ public sealed class Spectrum
                 throw new InvalidSpectrumException($"{origin}: wavelength {w:G6} (#{i + 1}) is outside {MinWavelengthNm:0}–{MaxWavelengthNm:0} nm; {UnitHint(wavelengthsNm)}", i);
             if (i > 0 && w - wavelengthsNm[i - 1] < MinStepNm)
                 throw new InvalidSpectrumException($"{origin}: wavelengths {wavelengthsNm[i - 1]:G9} and {w:G9} nm are closer than {MinStepNm} nm; {UnitHint(wavelengthsNm)}", i);
-            double v = values[i];
-            if (!double.IsFinite(v))
-                throw new InvalidSpectrumException($"{origin}: the value at {w} nm is {v}; expected a finite number.", i);
-            if (v < 0) NegativeSampleCount++;
+            CheckValue(wavelengthsNm, values, i, origin); // in sample order: the first problem is the one reported
+            if (values[i] < 0) NegativeSampleCount++;
         }
         _wavelengthsNm = wavelengthsNm.ToArray();
         _values = values.ToArray();
+        RegularStepNm = RegularStep(_wavelengthsNm);
+    }
+
+    /// <summary>
+    /// Builds a spectrum on the wavelengths of <paramref name="sameWavelengthsAs"/>, validating only the values: for
+    /// readers that build many spectra on one grid (one row per unit), which then share one copy of the wavelengths
+    /// (issue 16: checking and copying the same 401 wavelengths for every row cost as much as reading its numbers).
+    /// </summary>
+    /// <param name="sameWavelengthsAs">A spectrum whose wavelengths this one has (only its wavelengths are used).</param>
+    /// <param name="values">One finite value per wavelength, in <paramref name="unit"/>.</param>
+    /// <param name="unit">The unit of the values.</param>
+    /// <param name="name">A display name.</param>
+    /// <param name="origin">Where the data came from.</param>
+    /// <exception cref="InvalidSpectrumException">When a value is not finite or the count differs (message names the origin).</exception>
+    public Spectrum(Spectrum sameWavelengthsAs, ReadOnlySpan<double> values, SpectralUnit unit, string name, SpectrumOrigin origin)
+    {
+        ArgumentNullException.ThrowIfNull(sameWavelengthsAs);
+        ArgumentNullException.ThrowIfNull(name);
+        Name = name;
+        Origin = origin;
+        Unit = unit;
+        if (sameWavelengthsAs.Count != values.Length)
+            throw new InvalidSpectrumException($"{origin}: {sameWavelengthsAs.Count} wavelengths but {values.Length} values.");
+        NegativeSampleCount = CheckValues(sameWavelengthsAs._wavelengthsNm, values, origin);
+        _wavelengthsNm = sameWavelengthsAs._wavelengthsNm; // immutable: never written after construction
+        _values = values.ToArray();
+        RegularStepNm = sameWavelengthsAs.RegularStepNm;
+    }
+
+    /// <summary>Checks that every value is finite; returns how many are below zero. Vectorised: v − v is 0 for a finite v
+    /// and NaN otherwise, so one NaN in the running sum sends the check to the sample-by-sample loop that names it.</summary>
+    private static int CheckValues(ReadOnlySpan<double> wavelengthsNm, ReadOnlySpan<double> values, SpectrumOrigin origin)
+    {
+        var probe = Vector<double>.Zero;
+        var below = Vector<long>.Zero;
+        int i = 0, negative = 0;
+        for (; i <= values.Length - Vector<double>.Count; i += Vector<double>.Count)
+        {
+            var v = new Vector<double>(values[i..]);
+            probe += v - v;
+            below -= Vector.LessThan(v, Vector<double>.Zero); // each true lane is −1
+        }
+        if (double.IsNaN(Vector.Sum(probe))) i = 0;
+        else negative = (int)Vector.Sum(below);
+        for (; i < values.Length; i++)
+        {
+            CheckValue(wavelengthsNm, values, i, origin);
+            if (values[i] < 0) negative++;
+        }
+        return negative;
+    }
+
+    private static void CheckValue(ReadOnlySpan<double> wavelengthsNm, ReadOnlySpan<double> values, int i, SpectrumOrigin origin)
+    {
+        if (!double.IsFinite(values[i]))
+            throw new InvalidSpectrumException($"{origin}: the value at {wavelengthsNm[i]} nm is {values[i]}; expected a finite number.", i);
+    }
+
+    /// <summary>The step of a grid whose every interval equals the first within 1e-6 nm; otherwise null.</summary>
+    private static double? RegularStep(double[] wavelengthsNm)
+    {
+        double step = wavelengthsNm[1] - wavelengthsNm[0];
+        for (int i = 2; i < wavelengthsNm.Length; i++)
+            if (Math.Abs(wavelengthsNm[i] - wavelengthsNm[i - 1] - step) > 1e-6) return null;
+        return step;
     }
 
     /// <summary>Shortest wavelength a spectrum may have, nm (a plausibility gate: far UV).</summary>
@@ -107,16 +172,7 @@ public sealed class Spectrum
     /// <summary>
     /// The regular step of the grid in nm when every interval equals the first within 1e-6 nm; otherwise null.
     /// </summary>
-    public double? RegularStepNm
-    {
-        get
-        {
-            double step = _wavelengthsNm[1] - _wavelengthsNm[0];
-            for (int i = 2; i < _wavelengthsNm.Length; i++)
-                if (Math.Abs(_wavelengthsNm[i] - _wavelengthsNm[i - 1] - step) > 1e-6) return null;
-            return step;
-        }
-    }
+    public double? RegularStepNm { get; }
 
     /// <summary>A copy with every value multiplied by <paramref name="factor"/>.</summary>
     /// <param name="factor">A finite scale factor.</param>
@@ -125,7 +181,7 @@ public sealed class Spectrum
     {
         var v = new double[_values.Length];
         for (int i = 0; i < v.Length; i++) v[i] = _values[i] * factor;
-        return new Spectrum(_wavelengthsNm, v, Unit, Name, Origin);
+        return new Spectrum(this, v, Unit, Name, Origin);
     }
 
     /// <summary>A copy with every value multiplied by 2^<paramref name="exponent"/> — exact, and safe for subnormal values
@@ -136,18 +192,18 @@ public sealed class Spectrum
     {
         var v = new double[_values.Length];
         for (int i = 0; i < v.Length; i++) v[i] = Math.ScaleB(_values[i], exponent);
-        return new Spectrum(_wavelengthsNm, v, Unit, Name, Origin);
+        return new Spectrum(this, v, Unit, Name, Origin);
     }
 
     /// <summary>A copy with another name.</summary>
     /// <param name="name">The new name (any text, not null).</param>
     /// <returns>The renamed spectrum.</returns>
-    public Spectrum WithName(string name) => new(_wavelengthsNm, _values, Unit, name, Origin);
+    public Spectrum WithName(string name) => new(this, _values, Unit, name, Origin);
 
     /// <summary>A copy with another unit (the values are unchanged).</summary>
     /// <param name="unit">The new unit of the same values (no conversion is done).</param>
     /// <returns>The spectrum.</returns>
-    public Spectrum WithUnit(SpectralUnit unit) => new(_wavelengthsNm, _values, unit, Name, Origin);
+    public Spectrum WithUnit(SpectralUnit unit) => new(this, _values, unit, Name, Origin);
 
     /// <summary>Linear interpolation at one wavelength; zero outside the measured range.</summary>
     /// <param name="wavelengthNm">Wavelength in nm.</param>
