@@ -242,6 +242,24 @@ public class RenditionTests
     }
 
     [Fact]
+    public void A_reference_spectrum_is_built_once_when_first_read_and_equals_the_one_built_at_once()
+    {
+        // The CIE 224:2017 blend (docs/methods/cie224-tm30.md §2) built directly: (1 − m)·P/Y_P + m·D/Y_D, m = 0.2 at 4200 K.
+        int built = 0;
+        var eager = ReferenceIlluminants.ForCie224(4200, 380, 1, 401);
+        var lazy = new ReferenceIlluminant(ReferenceKind.Blend, 4200, 0.2, () => { built++; return eager.Samples; });
+        Assert.Equal(0, built);
+        Assert.Equal(eager, lazy);
+        Assert.Equal(eager.Samples.Values, lazy.Samples.Values);
+        Assert.Equal(1, built);
+        var p = ReferenceIlluminants.Planckian(4200, 380, 1, 401);
+        var d = ReferenceIlluminants.Daylight(4200, 380, 1, 401);
+        var ybar = Colorimeter.CmfWeights(Observer.Cie1931TwoDegree, 380, 1, 401).Weights[1];
+        double yp = SpectralSum.Dot(p, ybar), yd = SpectralSum.Dot(d, ybar);
+        for (int k = 0; k < 401; k += 50) Assert.Equal(0.8 * p[k] / yp + 0.2 * d[k] / yd, eager.Samples.Values[k], 15);
+    }
+
+    [Fact]
     public void Single_colour_LED_gets_results_with_the_warnings_a_practitioner_needs()
     {
         var grid = SyntheticSpectra.Grid(380, 780, 1);

@@ -132,8 +132,8 @@ public static class ReferenceIlluminants
     /// <returns>The reference.</returns>
     public static ReferenceIlluminant ForCie13_3(double cctKelvin, int startNm, int stepNm, int count) =>
         cctKelvin < 5000
-            ? new ReferenceIlluminant(ReferenceKind.Planckian, cctKelvin, 0, new RegularSamples(startNm, stepNm, Planckian(cctKelvin, startNm, stepNm, count), "Planckian"))
-            : new ReferenceIlluminant(ReferenceKind.CieDaylight, cctKelvin, 1, new RegularSamples(startNm, stepNm, Daylight(cctKelvin, startNm, stepNm, count), "CIE daylight"));
+            ? new ReferenceIlluminant(ReferenceKind.Planckian, cctKelvin, 0, () => new RegularSamples(startNm, stepNm, Planckian(cctKelvin, startNm, stepNm, count), "Planckian"))
+            : new ReferenceIlluminant(ReferenceKind.CieDaylight, cctKelvin, 1, () => new RegularSamples(startNm, stepNm, Daylight(cctKelvin, startNm, stepNm, count), "CIE daylight"));
 
     /// <summary>
     /// CIE 224:2017 reference: Planckian below 4000 K, CIE daylight above 5000 K, and between them the blend
@@ -147,16 +147,21 @@ public static class ReferenceIlluminants
     public static ReferenceIlluminant ForCie224(double cctKelvin, int startNm, int stepNm, int count)
     {
         if (cctKelvin < 4000)
-            return new ReferenceIlluminant(ReferenceKind.Planckian, cctKelvin, 0, new RegularSamples(startNm, stepNm, Planckian(cctKelvin, startNm, stepNm, count), "Planckian"));
+            return new ReferenceIlluminant(ReferenceKind.Planckian, cctKelvin, 0, () => new RegularSamples(startNm, stepNm, Planckian(cctKelvin, startNm, stepNm, count), "Planckian"));
         if (cctKelvin > 5000)
-            return new ReferenceIlluminant(ReferenceKind.CieDaylight, cctKelvin, 1, new RegularSamples(startNm, stepNm, Daylight(cctKelvin, startNm, stepNm, count), "CIE daylight"));
+            return new ReferenceIlluminant(ReferenceKind.CieDaylight, cctKelvin, 1, () => new RegularSamples(startNm, stepNm, Daylight(cctKelvin, startNm, stepNm, count), "CIE daylight"));
         double m = (cctKelvin - 4000) / 1000;
+        return new ReferenceIlluminant(ReferenceKind.Blend, cctKelvin, m, () => Blend(cctKelvin, m, startNm, stepNm, count));
+    }
+
+    private static RegularSamples Blend(double cctKelvin, double m, int startNm, int stepNm, int count)
+    {
         var p = Planckian(cctKelvin, startNm, stepNm, count);
         var d = Daylight(cctKelvin, startNm, stepNm, count);
         var ybar = Lumen.Colorimetry.Colorimeter.CmfWeights(Observer.Cie1931TwoDegree, startNm, stepNm, count).Weights[1];
         double yp = Lumen.Colorimetry.SpectralSum.Dot(p, ybar), yd = Lumen.Colorimetry.SpectralSum.Dot(d, ybar);
         var mix = new double[count];
         for (int k = 0; k < count; k++) mix[k] = (1 - m) * p[k] / yp + m * d[k] / yd;
-        return new ReferenceIlluminant(ReferenceKind.Blend, cctKelvin, m, new RegularSamples(startNm, stepNm, mix, "CIE 224 blend"));
+        return new RegularSamples(startNm, stepNm, mix, "CIE 224 blend");
     }
 }
