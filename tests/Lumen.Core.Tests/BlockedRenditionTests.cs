@@ -63,6 +63,7 @@ public class BlockedRenditionTests
         var set = RandomSpectra(37, 1600 + blockSize); // 37 is divided by none of the block sizes above 1
         Assert.Contains(set, s => s.Cct < 4000);
         Assert.Contains(set, s => s.Cct > 5000);
+        Assert.Contains(set, s => s.Cct is > 4000 and < 5000); // the blend
         for (int from = 0; from < set.Count; from += blockSize)
         {
             var block = set.Skip(from).Take(blockSize).ToList();
@@ -176,6 +177,32 @@ public class BlockedRenditionTests
         }
         Assert.False(table.TryEvaluate(999, sums));
         Assert.False(table.TryEvaluate(5001, sums));
+    }
+
+    [Theory]
+    [InlineData(1, 380, 401)]
+    [InlineData(5, 380, 81)]
+    [InlineData(1, 360, 471)]
+    public void Cie224_blend_reference_sums_from_tables_equal_direct_sums_of_the_blend(int step, int start, int count)
+    {
+        // The blend of 4000–5000 K (CIE 224:2017, docs/methods/cie224-tm30.md §2) built as a spectrum and summed directly
+        // is the reference; the table path combines Planckian and daylight tables linearly.
+        var table = SampleSums.For(step == 1 ? CieTables.ColorEvaluationSamples1Nm : CieTables.ColorEvaluationSamples5Nm, Observer.Cie1964TenDegree, start, step, count);
+        int rows = table.RowCount;
+        var rng = new Random(4000 + step);
+        var test = new double[count];
+        var testSums = new double[rows];
+        var fromTables = new double[rows];
+        foreach (double t in new[] { 4000.5, 4999.5 }.Concat(Enumerable.Range(0, 60).Select(_ => 4000 + 1000 * rng.NextDouble())))
+        {
+            var reference = ReferenceIlluminants.ForCie224(t, start, step, count);
+            Assert.Equal(ReferenceKind.Blend, reference.Kind);
+            table.Compute([test], [reference], testSums, fromTables);
+            var direct = new double[rows];
+            SpectralSum.Many(table.Rows, [reference.Samples.Values], direct);
+            for (int r = 0; r < rows; r++)
+                Assert.True(Math.Abs(fromTables[r] - direct[r]) <= 1e-12 * Math.Abs(direct[r]), $"{t:0.###} K, row {r}: {fromTables[r]:R} vs {direct[r]:R}");
+        }
     }
 
     [Fact]

@@ -13,14 +13,16 @@ namespace Lumen.Rendition;
 /// <see cref="SpectralSum.Many"/>. A CIE daylight reference is S0 + M1·S1 + M2·S2, so its sums are
 /// Σw·S0 + M1·Σw·S1 + M2·Σw·S2 with the three component sums computed once per grid: the same value as summing the
 /// daylight spectrum, in another order (rounding of order 1e-15 relative). Planckian references of 1000–5000 K come from
-/// <see cref="PlanckianSums"/> (interpolated, checked to 1e-12 relative); blended ones, and Planckian ones should that
-/// table fail its check, are summed like the test spectra, in the same pass.
+/// <see cref="PlanckianSums"/> (interpolated, checked to 1e-12 relative); CIE 224 blends of 4000–5000 K combine the two
+/// (<see cref="TryBlend"/>). Only a reference a table cannot give (should a table fail its check) is summed like the test
+/// spectra, in the same pass.
 /// </remarks>
 internal sealed class SampleSums
 {
     private static readonly ConcurrentDictionary<(string, Observer, int, int, int), SampleSums> Cache = new();
     private readonly double[] _daylight; // rows × 3: sums of S0, S1, S2
     private readonly Lazy<PlanckianSums?> _planckian;
+    private readonly Lazy<(PlanckianSums? Planckian, double[] Daylight)> _blendY; // the CIE 224 blend's normalising Y
 
     private SampleSums(double[][] rows, int startNm, int stepNm, int count)
     {
@@ -29,6 +31,14 @@ internal sealed class SampleSums
         _daylight = new double[3 * rows.Length];
         SpectralSum.Many(rows, [s0, s1, s2], _daylight);
         _planckian = new(() => PlanckianSums.Build(rows, startNm, stepNm, count));
+        _blendY = new(() =>
+        {
+            // Y of the parts of a blend, as ReferenceIlluminants.ForCie224 normalises them: Σ ȳ(2°)·S.
+            double[][] cmf2 = Colorimeter.CmfWeights(Observer.Cie1931TwoDegree, startNm, stepNm, count).Weights;
+            var daylight = new double[9];
+            SpectralSum.Many(cmf2, [s0, s1, s2], daylight);
+            return (PlanckianSums.Build(cmf2, startNm, stepNm, count), [daylight[1], daylight[4], daylight[7]]);
+        });
     }
 
     /// <summary>Weight rows: x̄, ȳ, z̄ of the white, then x̄, ȳ, z̄ of each sample, each × Δλ.</summary>
@@ -113,11 +123,30 @@ internal sealed class SampleSums
             var r = references[i];
             if (r.Kind == ReferenceKind.CieDaylight) continue;
             if (r.Kind == ReferenceKind.Planckian && planckian is not null && planckian.TryEvaluate(r.CctKelvin, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
+            if (r.Kind == ReferenceKind.Blend && planckian is not null && TryBlend(planckian, r, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
             vectors.Add(r.Samples.Values);
         }
         var rented = System.Buffers.ArrayPool<double>.Shared.Rent(vectors.Count * rows);
         try { Split(rented.AsSpan(0, vectors.Count * rows), tests.Count, vectors, references, tabulated, testSums, referenceSums); }
         finally { System.Buffers.ArrayPool<double>.Shared.Return(rented); }
+    }
+
+    /// <summary>
+    /// The sums of a CIE 224 blend (1 − m)·P/Y_P + m·D/Y_D from tables: (1 − m)/Y_P·ΣwP + m/Y_D·ΣwD, with ΣwP and Y_P
+    /// from Planckian tables and ΣwD and Y_D from the daylight components (linear, so equal to summing the blend up to
+    /// rounding). False when a table is missing or the temperature is outside it (the blend is then summed directly).
+    /// </summary>
+    private bool TryBlend(PlanckianSums planckian, ReferenceIlluminant r, Span<double> target)
+    {
+        var (yTable, yDaylight) = _blendY.Value;
+        Span<double> y = stackalloc double[3];
+        if (yTable is null || !yTable.TryEvaluate(r.CctKelvin, y) || !planckian.TryEvaluate(r.CctKelvin, target)) return false;
+        var (m1, m2) = ReferenceIlluminants.DaylightFactors(r.CctKelvin);
+        double m = r.DaylightFraction, a = (1 - m) / y[1], b = m / (yDaylight[0] + m1 * yDaylight[1] + m2 * yDaylight[2]);
+        int rows = RowCount;
+        for (int row = 0; row < rows; row++)
+            target[row] = a * target[row] + b * (_daylight[row] + m1 * _daylight[rows + row] + m2 * _daylight[2 * rows + row]);
+        return true;
     }
 
     /// <summary>Sums every vector (tests first, then the non-daylight references) and hands each out.</summary>
