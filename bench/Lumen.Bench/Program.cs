@@ -55,13 +55,14 @@ public static class Program
         {
             var fresh = lines.Skip(7).Select(l => l.Split('|')[1].Trim()).ToHashSet(StringComparer.Ordinal);
             var old = File.ReadAllLines(path);
+            var kept = new HashSet<string>(StringComparer.Ordinal);
             string oldRun = old.FirstOrDefault(l => l.StartsWith("Run: ", StringComparison.Ordinal)) is { } r0 ? r0[5..Math.Min(r0.Length, 25)].TrimEnd(',', ' ') : "an earlier run";
             foreach (var row in old.Where(l => l.StartsWith("| '", StringComparison.Ordinal) || l.StartsWith("| \"", StringComparison.Ordinal)))
             {
                 var key = row.Split('|')[1].Trim();
                 int from = key.IndexOf(" (from ", StringComparison.Ordinal);
                 var name = from < 0 ? key : key[..from]; // a row kept from an earlier run is replaced when its benchmark ran again
-                if (fresh.Contains(name)) continue;
+                if (fresh.Contains(name) || !kept.Add(name)) continue; // one row per benchmark: the newest (listed first)
                 lines.Add(from < 0 ? row.Replace($"| {key} |", $"| {key} (from {oldRun}) |", StringComparison.Ordinal) : row);
             }
         }

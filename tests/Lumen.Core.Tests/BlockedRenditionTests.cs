@@ -93,6 +93,29 @@ public class BlockedRenditionTests
         }
     }
 
+    [Fact]
+    public void Daylight_references_kept_per_M1_M2_pair_give_the_direct_results()
+    {
+        // CIE 15 rounds M1 and M2 to three decimals, so nearby CCTs share one daylight reference (the premise of keeping
+        // its appearance per pair); every result must still equal the direct computation at its own CCT.
+        Assert.Equal(ReferenceIlluminants.DaylightFactors(6500), ReferenceIlluminants.DaylightFactors(6500.2));
+        var (samples, _, _) = RandomSpectra(1, 77)[0];
+        var ccts = Enumerable.Range(0, 120).Select(i => 6480 + 0.37 * i).Concat([5000.5, 9000, 9000.1, 24000]).ToList();
+        foreach (var order in new[] { ccts, ccts.AsEnumerable().Reverse().ToList() })
+        {
+            var blocked = FidelityIndex.ComputeMany(order.Select(_ => samples).ToList(), order);
+            for (int i = 0; i < order.Count; i++)
+            {
+                var expected = UnblockedRendition.Fidelity(samples, order[i]);
+                string id = $"{order[i]:0.##} K";
+                Close(expected.Rf, blocked[i].Rf, id + " Rf");
+                Close(expected.Rg, blocked[i].Rg, id + " Rg");
+                Assert.Equal(expected.CesBins, blocked[i].CesBins);
+                for (int j = 0; j < 16; j++) Close(expected.HueBins[j].Rcs, blocked[i].HueBins[j].Rcs, $"{id} Rcs,h{j + 1}");
+            }
+        }
+    }
+
     [Theory]
     [InlineData(1)]
     [InlineData(5)]

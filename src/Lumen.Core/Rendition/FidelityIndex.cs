@@ -79,7 +79,7 @@ public static class FidelityIndex
                 vectors[j] = OnGrid(tests[members[j]], step, n);
                 references[j] = ReferenceIlluminants.ForCie224(cctsKelvin[members[j]], FirstNm, step, n);
             }
-            var group = table.Evaluate(vectors, references, FromSums);
+            var group = table.Evaluate(vectors, references, (t, r, reference) => FromSums(t, r, reference, table));
             for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
         }
         return results;
@@ -107,13 +107,13 @@ public static class FidelityIndex
     }
 
     /// <summary>Rf, Rg and the hue bins from the white and sample sums under the test and its reference.</summary>
-    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> refSums, ReferenceIlluminant reference)
+    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> refSums, ReferenceIlluminant reference, SampleSums table)
     {
         Span<double> tJ = stackalloc double[SampleCount], tA = stackalloc double[SampleCount], tB = stackalloc double[SampleCount];
-        Span<double> rJ = stackalloc double[SampleCount], rA = stackalloc double[SampleCount], rB = stackalloc double[SampleCount];
-        Span<double> rH = stackalloc double[SampleCount];
         Appearance(testSums, tJ, tA, tB, default);
-        Appearance(refSums, rJ, rA, rB, rH);
+        // The samples under the reference: for CIE daylight the same for every CCT of one (M1, M2) pair, so kept.
+        var under = reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of) : ReferenceAppearance.Of(refSums);
+        ReadOnlySpan<double> rJ = under.J, rA = under.A, rB = under.B, rH = under.Hue;
 
         var rfCes = new double[SampleCount];
         var de = new double[SampleCount];
@@ -162,6 +162,24 @@ public static class FidelityIndex
             bins[j] = new HueBin(j + 1, count[j], rfh, rcs, rhs, ra[j], rb[j], ta[j], tb[j]);
         }
         return new FidelityResult(rf, rg, rfCes, bins, reference, cesBins);
+    }
+
+    /// <summary>The 99 samples' CAM02-UCS J′, a′, b′ and hue (degrees) under a reference.</summary>
+    private sealed class ReferenceAppearance
+    {
+        public double[] J { get; } = new double[SampleCount];
+        public double[] A { get; } = new double[SampleCount];
+        public double[] B { get; } = new double[SampleCount];
+        public double[] Hue { get; } = new double[SampleCount];
+
+        public static ReferenceAppearance Of(double[] sums) => Of((ReadOnlySpan<double>)sums);
+
+        public static ReferenceAppearance Of(ReadOnlySpan<double> sums)
+        {
+            var r = new ReferenceAppearance();
+            Appearance(sums, r.J, r.A, r.B, r.Hue);
+            return r;
+        }
     }
 
     /// <summary>CAM02-UCS J′, a′, b′ (and hue) of the 99 samples from their sums and the white's (rows 0–2), Y_w = 100.</summary>

@@ -72,6 +72,32 @@ internal sealed class SampleSums
         });
     }
 
+    /// <summary>
+    /// What an index derives from a CIE daylight reference's sums alone (e.g. the samples' appearance under it), kept per
+    /// (M1, M2). CIE 15 rounds M1 and M2 to three decimals, so every daylight CCT that rounds to the same pair has the very
+    /// same reference spectrum and sums (<see cref="Compute"/> combines the component sums in a fixed order): the kept
+    /// value is exact, not an approximation, and units of similar CCT share it (issue 16).
+    /// </summary>
+    /// <typeparam name="T">What is kept (one type per table: each index has its own table).</typeparam>
+    /// <param name="reference">A CIE daylight reference.</param>
+    /// <param name="referenceSums">Its sums on this table.</param>
+    /// <param name="derive">Derives the value from the sums (pure).</param>
+    /// <returns>The value.</returns>
+    public T ForDaylight<T>(ReferenceIlluminant reference, ReadOnlySpan<double> referenceSums, Func<double[], T> derive) where T : class
+    {
+        var key = ReferenceIlluminants.DaylightFactors(reference.CctKelvin);
+        if (_daylightDerived.TryGetValue(key, out var kept) && kept is T value) return value;
+        value = derive(referenceSums.ToArray());
+        if (_daylightDerived.Count >= DaylightDerivedLimit) _daylightDerived.Clear(); // bounded; rebuilt as needed
+        _daylightDerived[key] = value;
+        return value;
+    }
+
+    private readonly ConcurrentDictionary<(double M1, double M2), object> _daylightDerived = new();
+
+    /// <summary>Most (M1, M2) pairs kept per table (all of 4000–25 000 K is about 2,000).</summary>
+    internal const int DaylightDerivedLimit = 4096;
+
     /// <summary>Most grids whose tables are kept at once.</summary>
     internal const int CacheLimit = 256;
 
