@@ -93,6 +93,25 @@ public class BlockedRenditionTests
         }
     }
 
+    [Theory]
+    [InlineData(1)]
+    [InlineData(5)]
+    public void Appearance_under_a_Planckian_reference_is_interpolated_within_its_tolerance(int step)
+    {
+        // The table must exist on both CES grids (it checked itself) and agree with CIECAM02 on the reference's sums at
+        // random temperatures of 1000–4000 K, not only where it checked.
+        var rng = new Random(224 + step);
+        foreach (double t in new[] { 1000.0, 3999.9 }.Concat(Enumerable.Range(0, 100).Select(_ => 1000 + 3000 * rng.NextDouble())))
+        {
+            var pair = FidelityIndex.PlanckianReferenceAppearance(step, t);
+            Assert.NotNull(pair);
+            var (interpolated, computed) = pair.Value;
+            for (int i = 0; i < computed.Length; i++)
+                Assert.True(Math.Abs(interpolated[i] - computed[i]) <= 1e-11, $"{t:0.###} K, value {i}: {interpolated[i]:R} vs {computed[i]:R}");
+        }
+        Assert.Null(FidelityIndex.PlanckianReferenceAppearance(step, 4000.5)); // the blend begins: not tabulated
+    }
+
     [Fact]
     public void Daylight_references_kept_per_M1_M2_pair_give_the_direct_results()
     {

@@ -85,6 +85,20 @@ public static class FidelityIndex
         return results;
     }
 
+    /// <summary>The samples' J′, a′, b′ under a Planckian reference, interpolated and computed (tests compare them); null
+    /// when the grid's table did not pass its check.</summary>
+    internal static (double[] Interpolated, double[] Computed)? PlanckianReferenceAppearance(int step, double cctKelvin)
+    {
+        int n = (LastNm - FirstNm) / step + 1;
+        var table = SampleSums.For(CieTables.Load(step == 5 ? "cfi_colour_evaluation_samples_5nm" : "cfi_colour_evaluation_samples_1nm"), Observer.Cie1964TenDegree, FirstNm, step, n);
+        if (ReferenceAppearance.TryPlanckian(table, cctKelvin) is not { } interpolated) return null;
+        var sums = new double[table.RowCount];
+        var reference = ReferenceIlluminants.ForCie224(cctKelvin, FirstNm, step, n);
+        table.Compute([new double[n]], [reference], new double[table.RowCount], sums);
+        var computed = ReferenceAppearance.Of(sums);
+        return ([.. interpolated.J, .. interpolated.A, .. interpolated.B], [.. computed.J, .. computed.A, .. computed.B]);
+    }
+
     /// <summary>The test spectrum on the 380–780 nm grid of the CES table (zero where it was not measured).</summary>
     private static double[] OnGrid(RegularSamples test, int step, int n)
     {
@@ -112,7 +126,10 @@ public static class FidelityIndex
         Span<double> tJ = stackalloc double[SampleCount], tA = stackalloc double[SampleCount], tB = stackalloc double[SampleCount];
         Appearance(testSums, tJ, tA, tB, default);
         // The samples under the reference: for CIE daylight the same for every CCT of one (M1, M2) pair, so kept.
-        var under = reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of) : ReferenceAppearance.Of(refSums);
+        // For a Planckian reference (below 4000 K) it is a smooth function of the temperature, interpolated.
+        var under = reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of)
+            : reference.Kind == ReferenceKind.Planckian && ReferenceAppearance.TryPlanckian(table, reference.CctKelvin) is { } planckian ? planckian
+            : ReferenceAppearance.Of(refSums);
         ReadOnlySpan<double> rJ = under.J, rA = under.A, rB = under.B, rH = under.Hue;
 
         var rfCes = new double[SampleCount];
@@ -173,6 +190,33 @@ public static class FidelityIndex
         public double[] Hue { get; } = new double[SampleCount];
 
         public static ReferenceAppearance Of(double[] sums) => Of((ReadOnlySpan<double>)sums);
+
+        /// <summary>Largest difference of an interpolated J′, a′ or b′ from the one computed (values up to about 100):
+        /// far below what moves Rf in its ninth digit.</summary>
+        public const double Tolerance = 1e-11;
+
+        /// <summary>Under a Planckian reference of 1000–4000 K (the CIE 224 Planckian range): J′, a′, b′ interpolated in
+        /// the mired from a table built once per grid (<see cref="SampleSums.TryPlanckianDerived"/>), the hue from a′ and
+        /// b′ as <see cref="Ciecam02.ForwardUcs"/> gives it. Null without a table.</summary>
+        public static ReferenceAppearance? TryPlanckian(SampleSums table, double cctKelvin)
+        {
+            Span<double> jab = stackalloc double[3 * SampleCount];
+            if (!table.TryPlanckianDerived(cctKelvin, 4000, 3 * SampleCount, Jab, Tolerance, jab)) return null;
+            var r = new ReferenceAppearance();
+            jab[..SampleCount].CopyTo(r.J); jab.Slice(SampleCount, SampleCount).CopyTo(r.A); jab.Slice(2 * SampleCount, SampleCount).CopyTo(r.B);
+            for (int i = 0; i < SampleCount; i++)
+            {
+                double h = Math.Atan2(r.B[i], r.A[i]) * 180 / Math.PI;
+                r.Hue[i] = h < 0 ? h + 360 : h;
+            }
+            return r;
+        }
+
+        private static double[] Jab(double[] sums)
+        {
+            var r = Of(sums);
+            return [.. r.J, .. r.A, .. r.B];
+        }
 
         public static ReferenceAppearance Of(ReadOnlySpan<double> sums)
         {

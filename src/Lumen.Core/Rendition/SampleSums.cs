@@ -95,6 +95,57 @@ internal sealed class SampleSums
 
     private readonly ConcurrentDictionary<(double M1, double M2), object> _daylightDerived = new();
 
+    /// <summary>
+    /// What an index derives from a Planckian reference's sums (e.g. the samples' appearance under it), interpolated in
+    /// the mired over 1000 K to <paramref name="upToKelvin"/> from the values derived at the interpolation nodes
+    /// (<see cref="MiredChebyshev"/>; the table is used only if it agrees with the derivation within
+    /// <paramref name="tolerance"/> everywhere it checks). Built once per table on first use.
+    /// </summary>
+    /// <param name="temperatureKelvin">The reference's temperature, K.</param>
+    /// <param name="upToKelvin">Highest temperature tabulated (at most 5000 K, the Planckian sums' range).</param>
+    /// <param name="width">Values derived.</param>
+    /// <param name="derive">Derives the values from the sums (pure, smooth in the temperature).</param>
+    /// <param name="tolerance">Largest absolute difference accepted.</param>
+    /// <param name="output">The values.</param>
+    /// <returns>False outside the range or without a table (derive from the sums then).</returns>
+    public bool TryPlanckianDerived(double temperatureKelvin, double upToKelvin, int width, Func<double[], double[]> derive, double tolerance, Span<double> output)
+    {
+        if (!(temperatureKelvin >= 1000 && temperatureKelvin <= upToKelvin)) return false;
+        if (!Volatile.Read(ref _planckianDerivedBuilt))
+        {
+            lock (_planckianDerivedLock)
+            {
+                if (!_planckianDerivedBuilt)
+                {
+                    _planckianDerived = BuildPlanckianDerived(upToKelvin, width, derive, tolerance);
+                    Volatile.Write(ref _planckianDerivedBuilt, true);
+                }
+            }
+        }
+        return _planckianDerived is { } table && table.TryEvaluate(temperatureKelvin, output);
+    }
+
+    private readonly object _planckianDerivedLock = new();
+    private MiredChebyshev? _planckianDerived;
+    private bool _planckianDerivedBuilt;
+
+    private MiredChebyshev? BuildPlanckianDerived(double upToKelvin, int width, Func<double[], double[]> derive, double tolerance)
+    {
+        if (_planckian.Value is not { } planckian) return null;
+        var sums = new double[RowCount];
+        double[] At(double[] mireds)
+        {
+            var values = new double[mireds.Length * width];
+            for (int i = 0; i < mireds.Length; i++)
+            {
+                if (!planckian.TryEvaluate(1e6 / mireds[i], sums)) values.AsSpan(i * width, width).Fill(double.NaN); // not tabulated
+                else derive(sums).CopyTo(values, i * width);
+            }
+            return values;
+        }
+        return MiredChebyshev.Build(1e6 / upToKelvin, 1000, width, logarithmic: false, At, (t, d) => Math.Abs(t - d) <= tolerance);
+    }
+
     /// <summary>Most (M1, M2) pairs kept per table (all of 4000–25 000 K is about 2,000).</summary>
     internal const int DaylightDerivedLimit = 4096;
 
