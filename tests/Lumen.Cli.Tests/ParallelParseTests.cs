@@ -12,6 +12,13 @@ public sealed class ParallelParseTests : IDisposable
 
     public void Dispose() => Directory.Delete(_dir, true);
 
+    private static readonly string[] Numbers =
+    [
+        "1.5E-03", "1e+2", "2E5", "-6.02e+2", "1.e5", ".5e1", ".5", "5.", "+.5", "-0.0e0", "007", "0.000000000000000000001",
+        "9007199254740991", "9007199254740993", "12345678901234567890", "1e22", "1e23", "1e-22", "1.5e-23", "1e00001", "1e-400",
+        "1e", "e5", "1e5.0", "1.2.3", "--1", "1E+", " 1.5e2", "1.5e2 ", "0x10", "1_000",
+    ];
+
     /// <summary>A hostile corpus of our own making: faults of every kind a row file can have.</summary>
     private string[] Corpus()
     {
@@ -30,6 +37,9 @@ public sealed class ParallelParseTests : IDisposable
             ["spaces.txt"] = $"id {wl.Replace(',', ' ')}\nA\t{Row(i => "1,5").Replace(',', ' ').Replace("1 5", "1,5", StringComparison.Ordinal)}  \n  B  {Row(i => i == 7 ? "\"" : "2").Replace(',', ' ')}\nC {Row(i => "3").Replace(',', ' ')} \"\"\n",
             ["semicolon.csv"] = $"id;{wl.Replace(',', ';')}\nA;{Row(i => "1,25").Replace(',', ';').Replace("1;25", "1,25", StringComparison.Ordinal)}\nB;{Row(i => i == 2 ? "1,2,3" : i == 3 ? new string('1', 70) + ",5" : "1")}\n".Replace("1,2,3;", "1,2,3;", StringComparison.Ordinal),
             ["extra-cell.csv"] = $"id,{wl}\nA,{Row(i => "1")},x\nB,{Row(i => "1")},,\nC,{Row(i => "+1.0E0")}\nD,{Row(i => "NaN")}\nE,{Row(i => "-0")}\n",
+            // Every form of number the one-pass cell reader takes, and the near misses it must hand to the general path.
+            ["numbers.csv"] = $"id,{wl}\n" + string.Join('\n', Numbers.Select((n, k) => $"N{k},{Row(i => i % 2 == 0 ? n : "0.5")}")) + $"\nL,{Row(i => Numbers[i % Numbers.Length])}\n",
+            ["numbers.tsv"] = $"id\t{wl.Replace(',', '\t')}\nT,{Row(i => Numbers[(i * 7) % Numbers.Length])}\n".Replace(',', '\t'),
         };
         foreach (var (name, text) in files) File.WriteAllText(Path.Combine(_dir, name), text);
         return [.. files.Keys.Select(n => Path.Combine(_dir, n)), Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"),
