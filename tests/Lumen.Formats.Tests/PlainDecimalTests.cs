@@ -37,6 +37,9 @@ public class PlainDecimalTests
     [InlineData(".5e1")]
     [InlineData("1e22")]
     [InlineData("1e-22")]
+    [InlineData("0.12345678901234")]
+    [InlineData("3.00000000")]
+    [InlineData("0.0000")]
     public void Plain_decimals_equal_the_general_parser_bit_for_bit(string text)
     {
         Assert.True(PlainDecimal.TryParse(text, out double fast));
@@ -56,6 +59,9 @@ public class PlainDecimalTests
     [InlineData("1e23")] // 10^23 is not an exact double
     [InlineData("1.5e-23")] // 15·10^-24: beyond 10^22
     [InlineData("123456789e-30")]
+    [InlineData("0.12/45")] // '/' and ':' border the digits
+    [InlineData("0.123:5")]
+    [InlineData("0.1٢34")] // a digit of another script
     [InlineData("0e-400")]
     [InlineData("9007199254740993")] // 2^53 + 1: its digits are not an exact double
     [InlineData("12345678901234567890")] // 20 digits: beyond 64 bits
