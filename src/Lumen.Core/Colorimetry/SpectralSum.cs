@@ -133,6 +133,7 @@ internal static class SpectralSum
     }
 
     /// <summary>Sums of four spectra against one weight triple: out = (x0, y0, z0, x1, …, z3).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)] // the hot loop from the first call (tables are built with it at start-up)
     private static void Group(double[] wx, double[] wy, double[] wz, double[] s0, double[] s1, double[] s2, double[] s3, Span<double> output)
     {
         int n = wx.Length, k = 0;

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Runtime.Intrinsics;
 
 namespace Lumen.Rendition;
@@ -120,6 +121,7 @@ internal sealed class Ciecam02
     }
 
     /// <summary>One step of <see cref="ForwardUcs"/> on 8 stimuli (Vector512); the same arithmetic as the other width.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)] // vector code is many times slower unoptimised; tables are built with it at start-up
     private void Step512(ReadOnlySpan<double> x, ReadOnlySpan<double> y, ReadOnlySpan<double> z, Span<double> jPrime, Span<double> aPrime, Span<double> bPrime, Span<double> a, Span<double> b)
     {
         var m = _toCones;
@@ -150,6 +152,7 @@ internal sealed class Ciecam02
     }
 
     /// <summary>The post-adaptation non-linear compression of CIECAM02: sign(q)·400·t/(27.13 + t) + 0.1, t = (F_L|q|/100)^0.42.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)] // vector code is many times slower unoptimised; tables are built with it at start-up
     private static Vector512<double> PostAdaptation(Vector512<double> q, Vector512<double> flOver100)
     {
         var t = Vector512.Exp(Vector512.Create(0.42) * Vector512.Log(flOver100 * Vector512.Abs(q)));
@@ -157,6 +160,7 @@ internal sealed class Ciecam02
     }
 
     /// <summary>One step of <see cref="ForwardUcs"/> on 4 stimuli (Vector256); the same arithmetic as the other width.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)] // vector code is many times slower unoptimised; tables are built with it at start-up
     private void Step256(ReadOnlySpan<double> x, ReadOnlySpan<double> y, ReadOnlySpan<double> z, Span<double> jPrime, Span<double> aPrime, Span<double> bPrime, Span<double> a, Span<double> b)
     {
         var m = _toCones;
@@ -187,6 +191,7 @@ internal sealed class Ciecam02
     }
 
     /// <summary>The post-adaptation non-linear compression of CIECAM02: sign(q)·400·t/(27.13 + t) + 0.1, t = (F_L|q|/100)^0.42.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)] // vector code is many times slower unoptimised; tables are built with it at start-up
     private static Vector256<double> PostAdaptation(Vector256<double> q, Vector256<double> flOver100)
     {
         var t = Vector256.Exp(Vector256.Create(0.42) * Vector256.Log(flOver100 * Vector256.Abs(q)));
