@@ -99,7 +99,8 @@ internal sealed class SampleSums
     /// What an index derives from a Planckian reference's sums (e.g. the samples' appearance under it), interpolated in
     /// the mired over 1000 K to <paramref name="upToKelvin"/> from the values derived at the interpolation nodes
     /// (<see cref="MiredChebyshev"/>; the table is used only if it agrees with the derivation within
-    /// <paramref name="tolerance"/> everywhere it checks). Built once per table on first use.
+    /// <paramref name="tolerance"/> everywhere it checks). Built once per table on first use, from that call's
+    /// arguments: a table serves one derivation (each index has its own table of sample sums).
     /// </summary>
     /// <param name="temperatureKelvin">The reference's temperature, K.</param>
     /// <param name="upToKelvin">Highest temperature tabulated (at most 5000 K, the Planckian sums' range).</param>
