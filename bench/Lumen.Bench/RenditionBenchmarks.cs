@@ -53,6 +53,36 @@ public class RenditionBenchmarks
         return acc;
     }
 
+    /// <summary>
+    /// Ra + R1–R14 + Rf + Rg in blocks of 16 with every reference at one temperature, to show what each reference range
+    /// costs (issue 16): 3000 K is Planckian (appearance interpolated), 4500 K the CIE 224 blend (appearance computed per
+    /// spectrum), 6500 K CIE daylight (appearance kept per M1, M2 pair). The spectra are the same LEDs; only the
+    /// reference is forced.
+    /// </summary>
+    [Benchmark(Description = "Ra+R1-R14+Rf+Rg, 100 spectra, blocks of 16, references at 3000 K")]
+    public double BlockedAt3000() => BlockedAt(3000);
+
+    [Benchmark(Description = "Ra+R1-R14+Rf+Rg, 100 spectra, blocks of 16, references at 4500 K")]
+    public double BlockedAt4500() => BlockedAt(4500);
+
+    [Benchmark(Description = "Ra+R1-R14+Rf+Rg, 100 spectra, blocks of 16, references at 6500 K")]
+    public double BlockedAt6500() => BlockedAt(6500);
+
+    private double BlockedAt(double cct)
+    {
+        double acc = 0;
+        var ccts = Enumerable.Repeat(cct, 16).ToArray();
+        for (int from = 0; from < _samples.Length; from += 16)
+        {
+            var block = _samples[from..Math.Min(_samples.Length, from + 16)];
+            var k = ccts[..block.Length];
+            var cri = ColorRenderingIndex.ComputeMany(block, k);
+            var fidelity = FidelityIndex.ComputeMany(block, k);
+            for (int i = 0; i < block.Length; i++) acc += cri[i].Ra + fidelity[i].Rg;
+        }
+        return acc;
+    }
+
     [Benchmark(Description = "Ra+R1-R14 only, 100 spectra")]
     public double CriOnly()
     {

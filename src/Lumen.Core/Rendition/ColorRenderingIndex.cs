@@ -64,7 +64,7 @@ public static class ColorRenderingIndex
                 vectors[j] = tests[members[j]].Values;
                 references[j] = ReferenceIlluminants.ForCie13_3(cctsKelvin[members[j]], start, step, n);
             }
-            var group = table.Evaluate(vectors, references, FromSums);
+            var group = table.Evaluate(vectors, references, (t, r, reference, _) => FromSums(t, r, reference));
             for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
         }
         return results;

@@ -79,7 +79,11 @@ public static class FidelityIndex
                 vectors[j] = OnGrid(tests[members[j]], step, n);
                 references[j] = ReferenceIlluminants.ForCie224(cctsKelvin[members[j]], FirstNm, step, n);
             }
-            var group = table.Evaluate(vectors, references, (t, r, reference) => FromSums(t, r, reference, table));
+            // Under a Planckian reference the samples' appearance is interpolated (its sums are then not needed).
+            var interpolated = new ReferenceAppearance?[members.Count];
+            for (int j = 0; j < members.Count; j++)
+                if (references[j].Kind == ReferenceKind.Planckian) interpolated[j] = ReferenceAppearance.TryPlanckian(table, references[j].CctKelvin);
+            var group = table.Evaluate(vectors, references, (t, r, reference, j) => FromSums(t, r, reference, table, interpolated[j]), [.. interpolated.Select(a => a is not null)]);
             for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
         }
         return results;
@@ -121,15 +125,13 @@ public static class FidelityIndex
     }
 
     /// <summary>Rf, Rg and the hue bins from the white and sample sums under the test and its reference.</summary>
-    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> refSums, ReferenceIlluminant reference, SampleSums table)
+    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> refSums, ReferenceIlluminant reference, SampleSums table, ReferenceAppearance? interpolated)
     {
         Span<double> tJ = stackalloc double[SampleCount], tA = stackalloc double[SampleCount], tB = stackalloc double[SampleCount];
         Appearance(testSums, tJ, tA, tB, default);
         // The samples under the reference: for CIE daylight the same for every CCT of one (M1, M2) pair, so kept.
         // For a Planckian reference (below 4000 K) it is a smooth function of the temperature, interpolated.
-        var under = reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of)
-            : reference.Kind == ReferenceKind.Planckian && ReferenceAppearance.TryPlanckian(table, reference.CctKelvin) is { } planckian ? planckian
-            : ReferenceAppearance.Of(refSums);
+        var under = interpolated ?? (reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of) : ReferenceAppearance.Of(refSums));
         ReadOnlySpan<double> rJ = under.J, rA = under.A, rB = under.B, rH = under.Hue;
 
         var rfCes = new double[SampleCount];

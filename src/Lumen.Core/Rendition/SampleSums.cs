@@ -156,26 +156,28 @@ internal sealed class SampleSums
     /// <summary>Number of grids whose tables are kept now.</summary>
     internal static int CachedGrids => Cache.Count;
 
-    /// <summary>A rendition index from the sums of one test spectrum and of its reference.</summary>
+    /// <summary>A rendition index from the sums of one test spectrum and of its reference (the <paramref name="index"/>-th).</summary>
     /// <typeparam name="T">The result type.</typeparam>
-    public delegate T FromSums<T>(ReadOnlySpan<double> testSums, ReadOnlySpan<double> referenceSums, ReferenceIlluminant reference);
+    public delegate T FromSums<T>(ReadOnlySpan<double> testSums, ReadOnlySpan<double> referenceSums, ReferenceIlluminant reference, int index);
 
     /// <summary>The sums of each test spectrum and its reference (<see cref="Compute"/>), then each one's result.</summary>
     /// <typeparam name="T">The result type.</typeparam>
     /// <param name="tests">Test spectra on this table's grid.</param>
     /// <param name="references">The reference of each.</param>
     /// <param name="result">Turns one spectrum's sums into its result.</param>
+    /// <param name="referenceSumsUnused">Per spectrum, true when its result does not read its reference's sums (they are
+    /// then not computed and read as NaN); null when every result reads them.</param>
     /// <returns>One result per test spectrum, in order.</returns>
-    public T[] Evaluate<T>(IReadOnlyList<double[]> tests, IReadOnlyList<ReferenceIlluminant> references, FromSums<T> result)
+    public T[] Evaluate<T>(IReadOnlyList<double[]> tests, IReadOnlyList<ReferenceIlluminant> references, FromSums<T> result, IReadOnlyList<bool>? referenceSumsUnused = null)
     {
         ArgumentNullException.ThrowIfNull(result);
         int rows = RowCount;
         var testSums = new double[tests.Count * rows];
         var referenceSums = new double[tests.Count * rows];
-        Compute(tests, references, testSums, referenceSums);
+        Compute(tests, references, testSums, referenceSums, referenceSumsUnused);
         var results = new T[tests.Count];
         for (int j = 0; j < results.Length; j++)
-            results[j] = result(testSums.AsSpan(j * rows, rows), referenceSums.AsSpan(j * rows, rows), references[j]);
+            results[j] = result(testSums.AsSpan(j * rows, rows), referenceSums.AsSpan(j * rows, rows), references[j], j);
         return results;
     }
 
@@ -186,7 +188,8 @@ internal sealed class SampleSums
     /// <param name="references">The reference of each test spectrum.</param>
     /// <param name="testSums">Output, tests × <see cref="RowCount"/>.</param>
     /// <param name="referenceSums">Output, tests × <see cref="RowCount"/>.</param>
-    public void Compute(IReadOnlyList<double[]> tests, IReadOnlyList<ReferenceIlluminant> references, Span<double> testSums, Span<double> referenceSums)
+    /// <param name="referenceSumsUnused">Per spectrum, true to skip its reference's sums (written as NaN); null for none.</param>
+    public void Compute(IReadOnlyList<double[]> tests, IReadOnlyList<ReferenceIlluminant> references, Span<double> testSums, Span<double> referenceSums, IReadOnlyList<bool>? referenceSumsUnused = null)
     {
         ArgumentNullException.ThrowIfNull(tests);
         ArgumentNullException.ThrowIfNull(references);
@@ -199,6 +202,7 @@ internal sealed class SampleSums
         for (int i = 0; i < references.Count; i++)
         {
             var r = references[i];
+            if (referenceSumsUnused is not null && referenceSumsUnused[i]) { referenceSums.Slice(i * rows, rows).Fill(double.NaN); tabulated[i] = true; continue; }
             if (r.Kind == ReferenceKind.CieDaylight) continue;
             if (r.Kind == ReferenceKind.Planckian && planckian is not null && planckian.TryEvaluate(r.CctKelvin, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
             if (r.Kind == ReferenceKind.Blend && planckian is not null && TryBlend(planckian, r, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
