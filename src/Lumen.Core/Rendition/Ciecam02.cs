@@ -66,8 +66,7 @@ internal sealed class Ciecam02
         var (ra, ga, ba) = Compressed(x, y, z);
         double a = ra - 12 * ga / 11 + ba / 11;
         double b = (ra + ga - 2 * ba) / 9;
-        double h = Math.Atan2(b, a) * 180 / Math.PI;
-        if (h < 0) h += 360;
+        double h = HueAngleDegrees(a, b);
         double r = Math.Sqrt(a * a + b * b);
         // cos(h + 2 rad) from cos h = a/r, sin h = b/r (no trigonometric call).
         double cosH = r > 0 ? a / r : 1, sinH = r > 0 ? b / r : 0;
@@ -113,11 +112,18 @@ internal sealed class Ciecam02
             for (int i = 0; i < padded; i += 4) Step256(bx.Slice(i, 4), by.Slice(i, 4), bz.Slice(i, 4), oj.Slice(i, 4), oa.Slice(i, 4), ob.Slice(i, 4), ha.Slice(i, 4), hb.Slice(i, 4));
         oj[..n].CopyTo(jPrime); oa[..n].CopyTo(aPrime); ob[..n].CopyTo(bPrime);
         if (hueDegrees.IsEmpty) return;
-        for (int i = 0; i < n; i++)
-        {
-            double h = Math.Atan2(hb[i], ha[i]) * 180 / Math.PI;
-            hueDegrees[i] = h < 0 ? h + 360 : h;
-        }
+        for (int i = 0; i < n; i++) hueDegrees[i] = HueAngleDegrees(ha[i], hb[i]);
+    }
+
+    /// <summary>The hue angle h in degrees, 0 ≤ h &lt; 360, of the opponent coordinates a, b (or of any a, b scaled alike,
+    /// such as CAM02-UCS a′, b′).</summary>
+    /// <param name="a">Red–green coordinate.</param>
+    /// <param name="b">Yellow–blue coordinate.</param>
+    /// <returns>The angle.</returns>
+    internal static double HueAngleDegrees(double a, double b)
+    {
+        double h = Math.Atan2(b, a) * 180 / Math.PI;
+        return h < 0 ? h + 360 : h;
     }
 
     /// <summary>One step of <see cref="ForwardUcs"/> on 8 stimuli (Vector512); the same arithmetic as the other width.</summary>

@@ -206,11 +206,7 @@ public static class FidelityIndex
             if (!table.TryPlanckianDerived(cctKelvin, 4000, 3 * SampleCount, Jab, Tolerance, jab)) return null;
             var r = new ReferenceAppearance();
             jab[..SampleCount].CopyTo(r.J); jab.Slice(SampleCount, SampleCount).CopyTo(r.A); jab.Slice(2 * SampleCount, SampleCount).CopyTo(r.B);
-            for (int i = 0; i < SampleCount; i++)
-            {
-                double h = Math.Atan2(r.B[i], r.A[i]) * 180 / Math.PI;
-                r.Hue[i] = h < 0 ? h + 360 : h;
-            }
+            for (int i = 0; i < SampleCount; i++) r.Hue[i] = Ciecam02.HueAngleDegrees(r.A[i], r.B[i]);
             return r;
         }
 

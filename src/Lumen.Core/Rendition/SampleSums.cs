@@ -112,21 +112,12 @@ internal sealed class SampleSums
     public bool TryPlanckianDerived(double temperatureKelvin, double upToKelvin, int width, Func<double[], double[]> derive, double tolerance, Span<double> output)
     {
         if (!(temperatureKelvin >= 1000 && temperatureKelvin <= upToKelvin)) return false;
-        if (!Volatile.Read(ref _planckianDerivedBuilt))
-        {
-            lock (_planckianDerivedLock)
-            {
-                if (!_planckianDerivedBuilt)
-                {
-                    _planckianDerived = BuildPlanckianDerived(upToKelvin, width, derive, tolerance);
-                    Volatile.Write(ref _planckianDerivedBuilt, true);
-                }
-            }
-        }
-        return _planckianDerived is { } table && table.TryEvaluate(temperatureKelvin, output);
+        var table = LazyInitializer.EnsureInitialized(ref _planckianDerived, ref _planckianDerivedBuilt, ref _planckianDerivedLock,
+            () => BuildPlanckianDerived(upToKelvin, width, derive, tolerance));
+        return table is not null && table.TryEvaluate(temperatureKelvin, output);
     }
 
-    private readonly object _planckianDerivedLock = new();
+    private object? _planckianDerivedLock;
     private MiredChebyshev? _planckianDerived;
     private bool _planckianDerivedBuilt;
 
