@@ -256,10 +256,22 @@ public static class DelimitedSpectrumReader
     public static bool TryParseNumber(string cell, char delimiter, out double value)
     {
         ArgumentNullException.ThrowIfNull(cell);
-        var text = cell;
-        if (delimiter != ',' && text.Contains(',', StringComparison.Ordinal) && !text.Contains('.', StringComparison.Ordinal))
-            text = text.Replace(',', '.');
-        if (PlainDecimal.TryParse(text, out value)) return true;
-        return double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
+        return TryParseNumber(cell.AsSpan(), delimiter, out value);
     }
+
+    /// <summary><see cref="TryParseNumber(string, char, out double)"/> on a span (the row reader's cells).</summary>
+    internal static bool TryParseNumber(ReadOnlySpan<char> cell, char delimiter, out double value)
+    {
+        if (delimiter != ',' && cell.Contains(',') && !cell.Contains('.'))
+        {
+            Span<char> copy = cell.Length <= 64 ? stackalloc char[64] : new char[cell.Length];
+            copy = copy[..cell.Length];
+            cell.Replace(copy, ',', '.');
+            return ParseDecimal(copy, out value);
+        }
+        return ParseDecimal(cell, out value);
+    }
+
+    private static bool ParseDecimal(ReadOnlySpan<char> text, out double value) =>
+        PlainDecimal.TryParse(text, out value) || (double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value));
 }

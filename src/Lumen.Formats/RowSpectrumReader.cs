@@ -238,7 +238,7 @@ public static class RowSpectrumReader
         /// spans; only the ID and metadata cells become strings. Anything unusual (a ragged row, a cell that is not a
         /// number) returns null, and <see cref="ParseCells"/> then gives the diagnostic, so diagnostics have one source.
         /// Same trimming, decimal-comma and trailing-delimiter rules as <see cref="Cells"/> and
-        /// <see cref="DelimitedSpectrumReader.TryParseNumber"/>; a test compares both paths on a hostile corpus.
+        /// <see cref="DelimitedSpectrumReader.TryParseNumber(string, char, out double)"/>; a test compares both paths on a hostile corpus.
         /// </summary>
         private InputRecord? TryParseFast(string row, int ln)
         {
@@ -253,7 +253,6 @@ public static class RowSpectrumReader
             var idCells = _idColumns == 0 ? [] : new string[_idColumns];
             int cell = 0, pos = 0;
             bool whitespace = _d == ' ';
-            Span<char> comma = stackalloc char[64];
             while (true)
             {
                 int start, end;
@@ -291,7 +290,7 @@ public static class RowSpectrumReader
                 if (cell < _idColumns) idCells[cell] = token.ToString();
                 else if (cell - _idColumns < values.Length)
                 {
-                    if (!TryNumber(token, comma, out values[cell - _idColumns])) return null;
+                    if (!DelimitedSpectrumReader.TryParseNumber(token, _d, out values[cell - _idColumns])) return null;
                 }
                 else if (!(last && token.IsEmpty && cell == _expectedCells && cell + 1 > 2)) return null; // only a trailing delimiter may follow
                 cell++;
@@ -300,20 +299,6 @@ public static class RowSpectrumReader
             if (cell < _expectedCells || (cell > _expectedCells && cell != _expectedCells + 1)) return null;
             string name = _idColumns > 0 && idCells[0].Length > 0 ? idCells[0] : $"{_stem}:{ln}";
             return Built(values, name, ln, Metadata(idCells));
-        }
-
-        /// <summary>A cell as a finite number: <see cref="DelimitedSpectrumReader.TryParseNumber"/> on a span.</summary>
-        private bool TryNumber(ReadOnlySpan<char> cell, Span<char> scratch, out double value)
-        {
-            if (_d != ',' && cell.Contains(',') && !cell.Contains('.'))
-            {
-                if (cell.Length > scratch.Length) { value = 0; return false; }
-                cell.CopyTo(scratch);
-                scratch[..cell.Length].Replace(',', '.');
-                cell = scratch[..cell.Length];
-            }
-            if (PlainDecimal.TryParse(cell, out value)) return true;
-            return double.TryParse(cell, NumberStyles.Float, CultureInfo.InvariantCulture, out value) && double.IsFinite(value);
         }
 
         private InputRecord Built(ReadOnlySpan<double> values, string name, int ln, IReadOnlyList<KeyValuePair<string, string>> metadata)
