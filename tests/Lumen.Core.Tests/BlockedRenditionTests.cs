@@ -102,14 +102,79 @@ public class BlockedRenditionTests
         // random temperatures of 1000–4000 K, not only where it checked.
         var rng = new Random(224 + step);
         foreach (double t in new[] { 1000.0, 3999.9 }.Concat(Enumerable.Range(0, 100).Select(_ => 1000 + 3000 * rng.NextDouble())))
+            AssertInterpolatedAppearance(step, t);
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(5)]
+    public void Appearance_under_a_blend_reference_is_interpolated_within_its_tolerance(int step)
+    {
+        // Per (M1, M2) pair and quarter-mired cell: at the ends of the blend, on both sides of pair changes (a dense run of
+        // temperatures crosses several) and at random temperatures of 4000–5000 K.
+        var rng = new Random(4500 + step);
+        var temperatures = new[] { 4000.0, 4000.001, 4999.999, 5000.0 }
+            .Concat(Enumerable.Range(0, 60).Select(i => 4490 + 0.3 * i))
+            .Concat(Enumerable.Range(0, 60).Select(_ => 4000 + 1000 * rng.NextDouble()));
+        foreach (double t in temperatures) AssertInterpolatedAppearance(step, t);
+        Assert.Null(FidelityIndex.InterpolatedReferenceAppearance(step, 5000.5)); // CIE daylight: kept per pair, exact
+    }
+
+    private static void AssertInterpolatedAppearance(int step, double t)
+    {
+        var pair = FidelityIndex.InterpolatedReferenceAppearance(step, t);
+        Assert.NotNull(pair);
+        var (interpolated, computed) = pair.Value;
+        for (int i = 0; i < computed.Length; i++)
+            Assert.True(Math.Abs(interpolated[i] - computed[i]) <= 1e-11, $"{t:0.###} K, value {i}: {interpolated[i]:R} vs {computed[i]:R}");
+    }
+
+    [Fact]
+    public void Hue_bins_without_the_arctangent_are_the_bins_of_the_angle()
+    {
+        // The comparison path must give ⌊h/22.5°⌋ of the arctangent's h for every point: random ones at every scale, points
+        // on and within rounding of every bin edge and axis, zero, signed zeros, infinities and NaN.
+        var rng = new Random(16);
+        var points = new List<(double A, double B)> { (0, 0), (-0.0, 0), (0, -0.0), (-0.0, -0.0), (1, 0), (-1, 0), (0, 1), (0, -1),
+            (double.PositiveInfinity, 1), (1, double.NegativeInfinity), (double.NaN, 1), (1e-300, 1e-300), (1e300, -1e300), (double.Epsilon, 0) };
+        for (int k = 0; k < 16; k++)
         {
-            var pair = FidelityIndex.PlanckianReferenceAppearance(step, t);
-            Assert.NotNull(pair);
-            var (interpolated, computed) = pair.Value;
-            for (int i = 0; i < computed.Length; i++)
-                Assert.True(Math.Abs(interpolated[i] - computed[i]) <= 1e-11, $"{t:0.###} K, value {i}: {interpolated[i]:R} vs {computed[i]:R}");
+            double theta = k * 22.5 * Math.PI / 180;
+            foreach (double r in new[] { 1e-8, 1.0, 37.5, 1e8 })
+                foreach (double nudge in new[] { 0.0, 1e-15, -1e-15, 1e-10, -1e-10, 1e-8, -1e-8 })
+                    points.Add((r * Math.Cos(theta + nudge), r * Math.Sin(theta + nudge)));
         }
-        Assert.Null(FidelityIndex.PlanckianReferenceAppearance(step, 4000.5)); // the blend begins: not tabulated
+        for (int i = 0; i < 100_000; i++)
+        {
+            double scale = Math.Pow(10, rng.Next(-6, 7));
+            points.Add((scale * (2 * rng.NextDouble() - 1), scale * (2 * rng.NextDouble() - 1)));
+        }
+        foreach (var (a, b) in points)
+            Assert.True(FidelityIndex.BinOf(Ciecam02.HueAngleDegrees(a, b)) == FidelityIndex.BinOf(a, b), $"({a:R}, {b:R})");
+    }
+
+    [Fact]
+    public void Blend_references_give_the_direct_results_across_pairs_and_cells()
+    {
+        // The interpolated blend appearance must give the same Rf, Rg, bins and hue-bin values as the direct computation
+        // at every CCT, in either order (a table depends only on its pair and cell, never on the units before it).
+        var (samples, _, _) = RandomSpectra(1, 4321)[0];
+        var ccts = Enumerable.Range(0, 120).Select(i => 4180 + 0.29 * i).Concat([4000, 4000.2, 4999.8, 5000]).ToList();
+        foreach (var order in new[] { ccts, ccts.AsEnumerable().Reverse().ToList() })
+        {
+            var blocked = FidelityIndex.ComputeMany(order.Select(_ => samples).ToList(), order);
+            for (int i = 0; i < order.Count; i++)
+            {
+                var expected = UnblockedRendition.Fidelity(samples, order[i]);
+                string id = $"{order[i]:0.##} K";
+                Assert.Equal(ReferenceKind.Blend, blocked[i].Reference.Kind);
+                Close(expected.Rf, blocked[i].Rf, id + " Rf");
+                Close(expected.Rg, blocked[i].Rg, id + " Rg");
+                Assert.Equal(expected.CesBins, blocked[i].CesBins);
+                for (int j = 0; j < 16; j++) Close(expected.HueBins[j].Rcs, blocked[i].HueBins[j].Rcs, $"{id} Rcs,h{j + 1}");
+                for (int k = 0; k < 99; k++) Close(expected.RfCes[k], blocked[i].RfCes[k], $"{id} Rf,CES{k + 1}");
+            }
+        }
     }
 
     [Fact]

@@ -79,25 +79,24 @@ public static class FidelityIndex
                 vectors[j] = OnGrid(tests[members[j]], step, n);
                 references[j] = ReferenceIlluminants.ForCie224(cctsKelvin[members[j]], FirstNm, step, n);
             }
-            // Under a Planckian reference the samples' appearance is interpolated (its sums are then not needed).
+            // Under a Planckian or blend reference the samples' appearance is interpolated (its sums are then not needed).
             var interpolated = new ReferenceAppearance?[members.Count];
-            for (int j = 0; j < members.Count; j++)
-                if (references[j].Kind == ReferenceKind.Planckian) interpolated[j] = ReferenceAppearance.TryPlanckian(table, references[j].CctKelvin);
+            for (int j = 0; j < members.Count; j++) interpolated[j] = ReferenceAppearance.TryInterpolated(table, references[j]);
             var group = table.Evaluate(vectors, references, (t, r, reference, j) => FromSums(t, r, reference, table, interpolated[j]), [.. interpolated.Select(a => a is not null)]);
             for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
         }
         return results;
     }
 
-    /// <summary>The samples' J′, a′, b′ under a Planckian reference, interpolated and computed (tests compare them); null
-    /// when the grid's table did not pass its check.</summary>
-    internal static (double[] Interpolated, double[] Computed)? PlanckianReferenceAppearance(int step, double cctKelvin)
+    /// <summary>The samples' J′, a′, b′ under a Planckian or blend reference, interpolated and computed (tests compare
+    /// them); null when no table serves it (a table that failed its check, a daylight reference).</summary>
+    internal static (double[] Interpolated, double[] Computed)? InterpolatedReferenceAppearance(int step, double cctKelvin)
     {
         int n = (LastNm - FirstNm) / step + 1;
         var table = SampleSums.For(CieTables.Load(step == 5 ? "cfi_colour_evaluation_samples_5nm" : "cfi_colour_evaluation_samples_1nm"), Observer.Cie1964TenDegree, FirstNm, step, n);
-        if (ReferenceAppearance.TryPlanckian(table, cctKelvin) is not { } interpolated) return null;
-        var sums = new double[table.RowCount];
         var reference = ReferenceIlluminants.ForCie224(cctKelvin, FirstNm, step, n);
+        if (ReferenceAppearance.TryInterpolated(table, reference) is not { } interpolated) return null;
+        var sums = new double[table.RowCount];
         table.Compute([new double[n]], [reference], new double[table.RowCount], sums);
         var computed = ReferenceAppearance.Of(sums);
         return ([.. interpolated.J, .. interpolated.A, .. interpolated.B], [.. computed.J, .. computed.A, .. computed.B]);
@@ -130,9 +129,11 @@ public static class FidelityIndex
         Span<double> tJ = stackalloc double[SampleCount], tA = stackalloc double[SampleCount], tB = stackalloc double[SampleCount];
         Appearance(testSums, tJ, tA, tB, default);
         // The samples under the reference: for CIE daylight the same for every CCT of one (M1, M2) pair, so kept.
-        // For a Planckian reference (below 4000 K) it is a smooth function of the temperature, interpolated.
+        // For a Planckian reference (below 4000 K) it is a smooth function of the temperature, interpolated; for a blend
+        // (4000–5000 K) too while the daylight part's (M1, M2) pair holds, interpolated per pair.
         var under = interpolated ?? (reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of) : ReferenceAppearance.Of(refSums));
-        ReadOnlySpan<double> rJ = under.J, rA = under.A, rB = under.B, rH = under.Hue;
+        ReadOnlySpan<double> rJ = under.J, rA = under.A, rB = under.B;
+        ReadOnlySpan<int> rBin = under.Bin;
 
         var rfCes = new double[SampleCount];
         var de = new double[SampleCount];
@@ -152,7 +153,7 @@ public static class FidelityIndex
         var cesBins = new int[SampleCount];
         for (int i = 0; i < SampleCount; i++)
         {
-            int j = Math.Min(15, (int)Math.Floor(rH[i] / 22.5));
+            int j = rBin[i];
             cesBins[i] = j + 1;
             count[j]++; sumTa[j] += tA[i]; sumTb[j] += tB[i]; sumRa[j] += rA[i]; sumRb[j] += rB[i]; sumDe[j] += de[i];
         }
@@ -183,13 +184,42 @@ public static class FidelityIndex
         return new FidelityResult(rf, rg, rfCes, bins, reference, cesBins);
     }
 
-    /// <summary>The 99 samples' CAM02-UCS J′, a′, b′ and hue (degrees) under a reference.</summary>
+    /// <summary>
+    /// The TM-30 hue bin (0–15) of a hue angle: ⌊h/22.5°⌋, the last bin closed at 360°.
+    /// </summary>
+    internal static int BinOf(double hueDegrees) => Math.Min(15, (int)Math.Floor(hueDegrees / 22.5));
+
+    /// <summary>
+    /// <see cref="BinOf(double)"/> of the hue of (a, b) as <see cref="Ciecam02.HueAngleDegrees"/> gives it, without the
+    /// arctangent: the quadrant from the signs, then, with the point turned into the first quadrant, the bin from y
+    /// against x·tan 22.5°, x and x·tan 67.5°
+    /// (issue 16: 99 arctangents were 5 % of a unit). Within 1e-9 (relative) of an edge between bins the arctangent
+    /// decides, so the bin is always the one the angle gives (the comparisons err by about 1e-16).
+    /// </summary>
+    internal static int BinOf(double a, double b)
+    {
+        // Turn the point into the first quadrant (x > 0, y ≥ 0), counting quarter turns.
+        int quarter; double x, y;
+        if (b >= 0) { if (a > 0) { quarter = 0; x = a; y = b; } else { quarter = 1; x = b; y = -a; } }
+        else if (a < 0) { quarter = 2; x = -a; y = -b; }
+        else { quarter = 3; x = -b; y = a; }
+        double edge = EdgeBand * (x + y);
+        double below = y - Tan225 * x, middle = y - x, above = y - Tan675 * x;
+        if (!(edge > 0) || !double.IsFinite(edge) || x <= edge || y <= edge || Math.Abs(below) <= edge || Math.Abs(middle) <= edge || Math.Abs(above) <= edge)
+            return BinOf(Ciecam02.HueAngleDegrees(a, b));
+        return 4 * quarter + (below < 0 ? 0 : middle < 0 ? 1 : above < 0 ? 2 : 3);
+    }
+
+    private const double EdgeBand = 1e-9;
+    private static readonly double Tan225 = Math.Sqrt(2) - 1, Tan675 = Math.Sqrt(2) + 1;
+
+    /// <summary>The 99 samples' CAM02-UCS J′, a′, b′ and TM-30 hue bin under a reference.</summary>
     private sealed class ReferenceAppearance
     {
         public double[] J { get; } = new double[SampleCount];
         public double[] A { get; } = new double[SampleCount];
         public double[] B { get; } = new double[SampleCount];
-        public double[] Hue { get; } = new double[SampleCount];
+        public int[] Bin { get; } = new int[SampleCount];
 
         public static ReferenceAppearance Of(double[] sums) => Of((ReadOnlySpan<double>)sums);
 
@@ -198,15 +228,22 @@ public static class FidelityIndex
         public const double Tolerance = 1e-11;
 
         /// <summary>Under a Planckian reference of 1000–4000 K (the CIE 224 Planckian range): J′, a′, b′ interpolated in
-        /// the mired from a table built once per grid (<see cref="SampleSums.TryPlanckianDerived"/>), the hue from a′ and
-        /// b′ as <see cref="Ciecam02.ForwardUcs"/> gives it. Null without a table.</summary>
-        public static ReferenceAppearance? TryPlanckian(SampleSums table, double cctKelvin)
+        /// the mired from a table built once per grid (<see cref="SampleSums.TryPlanckianDerived"/>); under a blend
+        /// (4000–5000 K), from a table per (M1, M2) pair and cell (<see cref="SampleSums.TryBlendDerived"/>); the hue from
+        /// a′ and b′ as <see cref="Ciecam02.ForwardUcs"/> gives it. Null without a table (daylight, or none built).</summary>
+        public static ReferenceAppearance? TryInterpolated(SampleSums table, ReferenceIlluminant reference)
         {
             Span<double> jab = stackalloc double[3 * SampleCount];
-            if (!table.TryPlanckianDerived(cctKelvin, 4000, 3 * SampleCount, Jab, Tolerance, jab)) return null;
+            bool found = reference.Kind switch
+            {
+                ReferenceKind.Planckian => table.TryPlanckianDerived(reference.CctKelvin, 4000, 3 * SampleCount, Jab, Tolerance, jab),
+                ReferenceKind.Blend => table.TryBlendDerived(reference, 3 * SampleCount, Jab, Tolerance, jab),
+                _ => false,
+            };
+            if (!found) return null;
             var r = new ReferenceAppearance();
             jab[..SampleCount].CopyTo(r.J); jab.Slice(SampleCount, SampleCount).CopyTo(r.A); jab.Slice(2 * SampleCount, SampleCount).CopyTo(r.B);
-            for (int i = 0; i < SampleCount; i++) r.Hue[i] = Ciecam02.HueAngleDegrees(r.A[i], r.B[i]);
+            for (int i = 0; i < SampleCount; i++) r.Bin[i] = BinOf(r.A[i], r.B[i]);
             return r;
         }
 
@@ -219,7 +256,9 @@ public static class FidelityIndex
         public static ReferenceAppearance Of(ReadOnlySpan<double> sums)
         {
             var r = new ReferenceAppearance();
-            Appearance(sums, r.J, r.A, r.B, r.Hue);
+            Span<double> hue = stackalloc double[SampleCount];
+            Appearance(sums, r.J, r.A, r.B, hue);
+            for (int i = 0; i < SampleCount; i++) r.Bin[i] = BinOf(hue[i]);
             return r;
         }
     }

@@ -14,7 +14,7 @@ namespace Lumen.Rendition;
 /// Σw·S0 + M1·Σw·S1 + M2·Σw·S2 with the three component sums computed once per grid: the same value as summing the
 /// daylight spectrum, in another order (rounding of order 1e-15 relative). Planckian references of 1000–5000 K come from
 /// <see cref="PlanckianSums"/> (interpolated, checked to 1e-12 relative); CIE 224 blends of 4000–5000 K combine the two
-/// (<see cref="TryBlend"/>). Only a reference a table cannot give (should a table fail its check) is summed like the test
+/// (<see cref="TryBlend(PlanckianSums, ReferenceIlluminant, Span{double})"/>). Only a reference a table cannot give (should a table fail its check) is summed like the test
 /// spectra, in the same pass.
 /// </remarks>
 internal sealed class SampleSums
@@ -162,14 +162,24 @@ internal sealed class SampleSums
     public T[] Evaluate<T>(IReadOnlyList<double[]> tests, IReadOnlyList<ReferenceIlluminant> references, FromSums<T> result, IReadOnlyList<bool>? referenceSumsUnused = null)
     {
         ArgumentNullException.ThrowIfNull(result);
-        int rows = RowCount;
-        var testSums = new double[tests.Count * rows];
-        var referenceSums = new double[tests.Count * rows];
-        Compute(tests, references, testSums, referenceSums, referenceSumsUnused);
-        var results = new T[tests.Count];
-        for (int j = 0; j < results.Length; j++)
-            results[j] = result(testSums.AsSpan(j * rows, rows), referenceSums.AsSpan(j * rows, rows), references[j], j);
-        return results;
+        int rows = RowCount, length = tests.Count * rows;
+        // Pooled: the sums live only until each result is made (a block of 16 needs two arrays of 38 KB, whose zeroing on
+        // every block showed in profiles).
+        var pool = System.Buffers.ArrayPool<double>.Shared;
+        double[] testSums = pool.Rent(length), referenceSums = pool.Rent(length);
+        try
+        {
+            Compute(tests, references, testSums.AsSpan(0, length), referenceSums.AsSpan(0, length), referenceSumsUnused);
+            var results = new T[tests.Count];
+            for (int j = 0; j < results.Length; j++)
+                results[j] = result(testSums.AsSpan(j * rows, rows), referenceSums.AsSpan(j * rows, rows), references[j], j);
+            return results;
+        }
+        finally
+        {
+            pool.Return(testSums);
+            pool.Return(referenceSums);
+        }
     }
 
     /// <summary>
@@ -209,18 +219,88 @@ internal sealed class SampleSums
     /// from Planckian tables and ΣwD and Y_D from the daylight components (linear, so equal to summing the blend up to
     /// rounding). False when a table is missing or the temperature is outside it (the blend is then summed directly).
     /// </summary>
-    private bool TryBlend(PlanckianSums planckian, ReferenceIlluminant r, Span<double> target)
+    private bool TryBlend(PlanckianSums planckian, ReferenceIlluminant r, Span<double> target) =>
+        TryBlend(planckian, r.CctKelvin, r.DaylightFraction, ReferenceIlluminants.DaylightFactors(r.CctKelvin), target);
+
+    /// <summary>The blend's sums at a temperature and daylight fraction with the daylight part's (M1, M2) given.</summary>
+    private bool TryBlend(PlanckianSums planckian, double cctKelvin, double m, (double M1, double M2) daylight, Span<double> target)
     {
         var (yTable, yDaylight) = _blendY.Value;
         Span<double> y = stackalloc double[3];
-        if (yTable is null || !yTable.TryEvaluate(r.CctKelvin, y) || !planckian.TryEvaluate(r.CctKelvin, target)) return false;
-        var (m1, m2) = ReferenceIlluminants.DaylightFactors(r.CctKelvin);
-        double m = r.DaylightFraction, a = (1 - m) / y[1], b = m / (yDaylight[0] + m1 * yDaylight[1] + m2 * yDaylight[2]);
+        if (yTable is null || !yTable.TryEvaluate(cctKelvin, y) || !planckian.TryEvaluate(cctKelvin, target)) return false;
+        var (m1, m2) = daylight;
+        double a = (1 - m) / y[1], b = m / (yDaylight[0] + m1 * yDaylight[1] + m2 * yDaylight[2]);
         int rows = RowCount;
         for (int row = 0; row < rows; row++)
             target[row] = a * target[row] + b * (_daylight[row] + m1 * _daylight[rows + row] + m2 * _daylight[2 * rows + row]);
         return true;
     }
+
+    /// <summary>
+    /// What an index derives from a CIE 224 blend reference's sums (e.g. the samples' appearance under it), interpolated
+    /// (issue 16). The blend's daylight part has M1 and M2 rounded to three decimals, a step function of the temperature,
+    /// so the derived values are smooth only while the pair holds: they are tabulated per (M1, M2) pair and per cell of
+    /// <see cref="BlendCellMired"/> mired, as a function of the temperature with the pair held fixed (one Chebyshev piece
+    /// of <see cref="BlendNodes"/> nodes, checked against the derivation within <paramref name="tolerance"/> when built).
+    /// A cell's table is built on its first use (17 derivations, about 0.15 ms) and depends only on its pair and cell, so
+    /// a result never depends on which units came before it; units of one production lot share few cells.
+    /// </summary>
+    /// <param name="reference">A CIE 224 blend reference.</param>
+    /// <param name="width">Values derived.</param>
+    /// <param name="derive">Derives the values from the sums (pure, smooth in the temperature for a fixed pair).</param>
+    /// <param name="tolerance">Largest absolute difference accepted.</param>
+    /// <param name="output">The values.</param>
+    /// <returns>False when not a blend or without a table (derive from the sums then).</returns>
+    public bool TryBlendDerived(ReferenceIlluminant reference, int width, Func<double[], double[]> derive, double tolerance, Span<double> output)
+    {
+        double t = reference.CctKelvin;
+        if (reference.Kind != ReferenceKind.Blend || !(t >= BlendLowKelvin && t <= BlendHighKelvin) || _planckian.Value is not { } planckian) return false;
+        var pair = ReferenceIlluminants.DaylightFactors(t);
+        int cell = Math.Clamp((int)((1e6 / t - 1e6 / BlendHighKelvin) / BlendCellMired), 0, BlendCells - 1);
+        if (_blendDerived.Count >= BlendDerivedLimit) _blendDerived.Clear(); // bounded; rebuilt as needed
+        var entry = _blendDerived.GetOrAdd((pair, cell), _ => new BlendCell());
+        var table = LazyInitializer.EnsureInitialized(ref entry.Table, ref entry.Built, ref entry.Lock, () =>
+        {
+            double low = 1e6 / BlendHighKelvin + cell * BlendCellMired;
+            var sums = new double[RowCount];
+            double[] At(double[] mireds)
+            {
+                var values = new double[mireds.Length * width];
+                for (int i = 0; i < mireds.Length; i++)
+                {
+                    double k = 1e6 / mireds[i];
+                    if (!TryBlend(planckian, k, (k - BlendLowKelvin) / (BlendHighKelvin - BlendLowKelvin), pair, sums)) values.AsSpan(i * width, width).Fill(double.NaN);
+                    else derive(sums).CopyTo(values, i * width);
+                }
+                return values;
+            }
+            return MiredChebyshev.Build(low, low + BlendCellMired, width, logarithmic: false, At, (a, d) => Math.Abs(a - d) <= tolerance, pieces: 1, nodesPerPiece: BlendNodes);
+        });
+        return table is not null && table.TryEvaluate(t, output);
+    }
+
+    private sealed class BlendCell
+    {
+        public MiredChebyshev? Table;
+        public bool Built;
+        public object? Lock;
+    }
+
+    private readonly ConcurrentDictionary<((double M1, double M2) Pair, int Cell), BlendCell> _blendDerived = new();
+
+    /// <summary>The CIE 224 blend's range, K (m = (T − 4000)/1000).</summary>
+    private const double BlendLowKelvin = 4000, BlendHighKelvin = 5000;
+
+    /// <summary>Width of a blend cell, mired (4000–5000 K is 50 mired: 200 cells of 4–6 K).</summary>
+    internal const double BlendCellMired = 0.25;
+
+    private const int BlendCells = 200;
+
+    /// <summary>Chebyshev nodes per blend cell (degree 7 over a quarter mired).</summary>
+    internal const int BlendNodes = 8;
+
+    /// <summary>Most blend cells kept per table (4000–5000 K meets a few hundred).</summary>
+    internal const int BlendDerivedLimit = 1024;
 
     /// <summary>Sums every vector (tests first, then the non-daylight references) and hands each out.</summary>
     private void Split(Span<double> all, int count, List<double[]> vectors, IReadOnlyList<ReferenceIlluminant> references, bool[] tabulated, Span<double> testSums, Span<double> referenceSums)
