@@ -79,6 +79,14 @@ public static class BatchScale
 
     private static readonly bool Pinning = File.Exists("/usr/bin/taskset");
 
+    /// <summary>Reads a file through once (into the page cache) before a timed child reads it.</summary>
+    private static void Warm(string path)
+    {
+        using var f = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20);
+        var buffer = new byte[1 << 20];
+        while (f.Read(buffer, 0, buffer.Length) > 0) { }
+    }
+
     /// <summary>Child process: runs one mode and prints "seconds peakBytes".</summary>
     public static void Child(string mode, string file, string spec, string output)
     {
@@ -118,6 +126,10 @@ public static class BatchScale
                 ? [Environment.ProcessPath!, "batch-child", mode, file, spec, output]
                 : [Environment.ProcessPath!, typeof(BatchScale).Assembly.Location, "batch-child", mode, file, spec, output];
             if (mode.EndsWith('1') && Pinning) command = ["/usr/bin/taskset", "-c", "0", .. command];
+            // Every mode starts with its input in the page cache: this VM reclaims idle file pages, and the first mode to
+            // read a file cold (Sep) took 1.4–1.5× its warm time (100,000 × 401: 3.5 s against 2.3–2.6 s after dropping the
+            // cache by hand), which made every ratio to it swing between runs.
+            Warm(mode == "sep" ? file + ".plain.csv" : file);
             var psi = new ProcessStartInfo(command[0], command[1..]) { RedirectStandardOutput = true, UseShellExecute = false };
             using var p = Process.Start(psi)!;
             string text = p.StandardOutput.ReadToEnd();
