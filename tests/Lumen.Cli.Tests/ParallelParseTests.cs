@@ -40,11 +40,18 @@ public sealed class ParallelParseTests : IDisposable
             // Every form of number the one-pass cell reader takes, and the near misses it must hand to the general path.
             ["numbers.csv"] = $"id,{wl}\n" + string.Join('\n', Numbers.Select((n, k) => $"N{k},{Row(i => i % 2 == 0 ? n : "0.5")}")) + $"\nL,{Row(i => Numbers[i % Numbers.Length])}\n",
             ["numbers.tsv"] = $"id\t{wl.Replace(',', '\t')}\nT,{Row(i => Numbers[(i * 7) % Numbers.Length])}\n".Replace(',', '\t'),
+            // Units from about 3900 K to 5400 K, most in the CIE 224 blend (4000–5000 K), whose reference appearance comes from tables built per (M1, M2)
+            // pair and cell as units arrive: the results must not depend on which thread met a cell first.
+            ["blend.csv"] = $"id,{wl}\n" + string.Join('\n', Enumerable.Range(0, 48).Select(k => $"B{k},{Row(i => BlendValue(4200 + 31.3 * k, 380 + 5 * i))}")) + "\n",
         };
         foreach (var (name, text) in files) File.WriteAllText(Path.Combine(_dir, name), text);
         return [.. files.Keys.Select(n => Path.Combine(_dir, n)), Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"),
             Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv")];
     }
+
+    /// <summary>A Planckian radiator's relative radiance with a gentle ripple, as text (the test's own made-up source).</summary>
+    private static string BlendValue(double kelvin, double nm) =>
+        (1e20 / Math.Pow(nm, 5) / (Math.Exp(1.4388e7 / (nm * kelvin)) - 1) * (1 + 0.15 * Math.Sin(nm / 23.0))).ToString("R", System.Globalization.CultureInfo.InvariantCulture);
 
     [Fact]
     public void Batch_output_and_diagnostics_are_byte_identical_on_one_and_four_threads()
