@@ -25,6 +25,20 @@ public sealed class PackageTests : IDisposable
     }
 
     [Fact]
+    public void A_build_for_one_platform_is_precompiled_and_the_tool_package_is_not()
+    {
+        // Issue 16: publishing for a runtime identifier (the single-file binary) turns ReadyToRun on; the platform-neutral
+        // tool package cannot carry precompiled code for every platform, so it must stay off there.
+        string project = Path.Combine(CliTests.RepoRoot, "src", "Lumen.Cli", "Lumen.Cli.csproj");
+        var forPlatform = Run("dotnet", $"msbuild \"{project}\" -getProperty:PublishReadyToRun -p:RuntimeIdentifier=linux-x64", CliTests.RepoRoot);
+        Assert.True(forPlatform.Code == 0, forPlatform.Out);
+        Assert.Equal("true", forPlatform.Out.Trim());
+        var neutral = Run("dotnet", $"msbuild \"{project}\" -getProperty:PublishReadyToRun", CliTests.RepoRoot);
+        Assert.True(neutral.Code == 0, neutral.Out);
+        Assert.NotEqual("true", neutral.Out.Trim());
+    }
+
+    [Fact]
     public void The_packed_tool_installs_and_runs_in_a_clean_folder()
     {
         string packages = Path.Combine(_dir, "packages"), tools = Path.Combine(_dir, "tools"), work = Path.Combine(_dir, "elsewhere");
