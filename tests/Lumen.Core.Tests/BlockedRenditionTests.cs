@@ -156,25 +156,10 @@ public class BlockedRenditionTests
     [Fact]
     public void Blend_references_give_the_direct_results_across_pairs_and_cells()
     {
-        // The interpolated blend appearance must give the same Rf, Rg, bins and hue-bin values as the direct computation
-        // at every CCT, in either order (a table depends only on its pair and cell, never on the units before it).
-        var (samples, _, _) = RandomSpectra(1, 4321)[0];
+        // The interpolated blend appearance must give the same results as the direct computation at every CCT, in either
+        // order (a table depends only on its pair and cell, never on the units before it).
         var ccts = Enumerable.Range(0, 120).Select(i => 4180 + 0.29 * i).Concat([4000, 4000.2, 4999.8, 5000]).ToList();
-        foreach (var order in new[] { ccts, ccts.AsEnumerable().Reverse().ToList() })
-        {
-            var blocked = FidelityIndex.ComputeMany(order.Select(_ => samples).ToList(), order);
-            for (int i = 0; i < order.Count; i++)
-            {
-                var expected = UnblockedRendition.Fidelity(samples, order[i]);
-                string id = $"{order[i]:0.##} K";
-                Assert.Equal(ReferenceKind.Blend, blocked[i].Reference.Kind);
-                Close(expected.Rf, blocked[i].Rf, id + " Rf");
-                Close(expected.Rg, blocked[i].Rg, id + " Rg");
-                Assert.Equal(expected.CesBins, blocked[i].CesBins);
-                for (int j = 0; j < 16; j++) Close(expected.HueBins[j].Rcs, blocked[i].HueBins[j].Rcs, $"{id} Rcs,h{j + 1}");
-                for (int k = 0; k < 99; k++) Close(expected.RfCes[k], blocked[i].RfCes[k], $"{id} Rf,CES{k + 1}");
-            }
-        }
+        AssertKeptReferencesGiveTheDirectResults(4321, ccts, ReferenceKind.Blend);
     }
 
     [Fact]
@@ -183,8 +168,15 @@ public class BlockedRenditionTests
         // CIE 15 rounds M1 and M2 to three decimals, so nearby CCTs share one daylight reference (the premise of keeping
         // its appearance per pair); every result must still equal the direct computation at its own CCT.
         Assert.Equal(ReferenceIlluminants.DaylightFactors(6500), ReferenceIlluminants.DaylightFactors(6500.2));
-        var (samples, _, _) = RandomSpectra(1, 77)[0];
         var ccts = Enumerable.Range(0, 120).Select(i => 6480 + 0.37 * i).Concat([5000.5, 9000, 9000.1, 24000]).ToList();
+        AssertKeptReferencesGiveTheDirectResults(77, ccts, ReferenceKind.CieDaylight);
+    }
+
+    /// <summary>One random spectrum assessed at many CCTs in a block, forwards and backwards: Rf, Rg, every Rf,CES, the
+    /// sample bins and every Rcs,hj equal the direct one-spectrum computation, and every reference is of the given kind.</summary>
+    private static void AssertKeptReferencesGiveTheDirectResults(int seed, List<double> ccts, ReferenceKind kind)
+    {
+        var (samples, _, _) = RandomSpectra(1, seed)[0];
         foreach (var order in new[] { ccts, ccts.AsEnumerable().Reverse().ToList() })
         {
             var blocked = FidelityIndex.ComputeMany(order.Select(_ => samples).ToList(), order);
@@ -192,10 +184,12 @@ public class BlockedRenditionTests
             {
                 var expected = UnblockedRendition.Fidelity(samples, order[i]);
                 string id = $"{order[i]:0.##} K";
+                Assert.Equal(kind, blocked[i].Reference.Kind);
                 Close(expected.Rf, blocked[i].Rf, id + " Rf");
                 Close(expected.Rg, blocked[i].Rg, id + " Rg");
                 Assert.Equal(expected.CesBins, blocked[i].CesBins);
                 for (int j = 0; j < 16; j++) Close(expected.HueBins[j].Rcs, blocked[i].HueBins[j].Rcs, $"{id} Rcs,h{j + 1}");
+                for (int k = 0; k < 99; k++) Close(expected.RfCes[k], blocked[i].RfCes[k], $"{id} Rf,CES{k + 1}");
             }
         }
     }
