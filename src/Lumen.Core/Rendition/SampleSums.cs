@@ -14,8 +14,8 @@ namespace Lumen.Rendition;
 /// Σw·S0 + M1·Σw·S1 + M2·Σw·S2 with the three component sums computed once per grid: the same value as summing the
 /// daylight spectrum, in another order (rounding of order 1e-15 relative). Planckian references of 1000–5000 K come from
 /// <see cref="PlanckianSums"/> (interpolated, checked to 1e-12 relative); CIE 224 blends of 4000–5000 K combine the two
-/// (<see cref="TryBlend(PlanckianSums, ReferenceIlluminant, Span{double})"/>). Only a reference a table cannot give (should a table fail its check) is summed like the test
-/// spectra, in the same pass.
+/// (<see cref="TryBlend(PlanckianSums, ReferenceIlluminant, Span{double})"/>). Only a reference a table cannot give
+/// (should a table fail its check) is summed like the test spectra, in the same pass.
 /// </remarks>
 internal sealed class SampleSums
 {
