@@ -260,8 +260,12 @@ internal sealed class SampleSums
         if (reference.Kind != ReferenceKind.Blend || !(t >= BlendLowKelvin && t <= BlendHighKelvin) || _planckian.Value is not { } planckian) return false;
         var pair = ReferenceIlluminants.DaylightFactors(t);
         int cell = Math.Clamp((int)((1e6 / t - 1e6 / BlendHighKelvin) / BlendCellMired), 0, BlendCells - 1);
-        if (_blendDerived.Count >= BlendDerivedLimit) _blendDerived.Clear(); // bounded; rebuilt as needed
-        var entry = _blendDerived.GetOrAdd((pair, cell), _ => new BlendCell());
+        if (!_blendDerived.TryGetValue((pair, cell), out var entry))
+        {
+            // Counting a concurrent dictionary takes all its locks: only on a miss, never on the per-unit path.
+            if (_blendDerived.Count >= BlendDerivedLimit) _blendDerived.Clear(); // bounded; rebuilt as needed
+            entry = _blendDerived.GetOrAdd((pair, cell), _ => new BlendCell());
+        }
         var table = LazyInitializer.EnsureInitialized(ref entry.Table, ref entry.Built, ref entry.Lock, () =>
         {
             double low = 1e6 / BlendHighKelvin + cell * BlendCellMired;
