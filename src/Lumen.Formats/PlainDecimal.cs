@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Numerics;
 
 namespace Lumen.Formats;
 
@@ -27,32 +28,35 @@ internal static class PlainDecimal
     /// is anything but a plain decimal running exactly to the delimiter (spaces, quotes, an exponent, a decimal comma…):
     /// the caller then takes the general path for that cell.
     /// </summary>
+    /// <typeparam name="TChar">UTF-16 characters (<see cref="char"/>) or UTF-8 bytes (<see cref="byte"/>): the cell is ASCII
+    /// either way, and a byte that is not ASCII simply ends it.</typeparam>
     /// <param name="text">The rest of a row, from the first character of a cell.</param>
     /// <param name="delimiter">The cell delimiter.</param>
     /// <param name="value">The number.</param>
     /// <param name="length">Characters of the cell (the delimiter, if any, is at this index).</param>
-    public static bool TryParseCell(ReadOnlySpan<char> text, char delimiter, out double value, out int length)
+    public static bool TryParseCell<TChar>(ReadOnlySpan<TChar> text, TChar delimiter, out double value, out int length)
+        where TChar : unmanaged, IBinaryInteger<TChar>
     {
         value = 0;
         length = 0;
         int i = 0, n = text.Length;
         bool negative = false;
-        if (n > 0 && (text[0] == '-' || text[0] == '+')) { negative = text[0] == '-'; i = 1; }
+        if (n > 0 && (At(text, 0) == '-' || At(text, 0) == '+')) { negative = At(text, 0) == '-'; i = 1; }
         ulong mantissa = 0;
         int digitsFrom = i;
         uint c = 0;
         // Below 2^53 before a digit, below 2^57 after it: no overflow; at or above 2^53 it can only grow, so decline.
-        while (i < n && (c = (uint)(text[i] - '0')) <= 9)
+        while (i < n && (c = At(text, i) - '0') <= 9)
         {
             if (mantissa >= ExactIntegers) return false;
             mantissa = mantissa * 10 + c;
             i++;
         }
         int digits = i - digitsFrom, fraction = 0;
-        if (i < n && text[i] == '.')
+        if (i < n && At(text, i) == '.')
         {
             int from = ++i;
-            while (i < n && (c = (uint)(text[i] - '0')) <= 9)
+            while (i < n && (c = At(text, i) - '0') <= 9)
             {
                 if (mantissa >= ExactIntegers) return false;
                 mantissa = mantissa * 10 + c;
@@ -62,13 +66,13 @@ internal static class PlainDecimal
         }
         if (digits + fraction == 0 || mantissa >= ExactIntegers) return false;
         int power = -fraction;
-        if (i < n && (text[i] | 0x20) == 'e')
+        if (i < n && (At(text, i) | 0x20) == 'e')
         {
             // An exponent (1.5E-03, as many instruments write): one to four digits, optional sign.
             bool minus = false;
-            if (++i < n && (text[i] == '-' || text[i] == '+')) { minus = text[i] == '-'; i++; }
+            if (++i < n && (At(text, i) == '-' || At(text, i) == '+')) { minus = At(text, i) == '-'; i++; }
             int from = i, exponent = 0;
-            while (i < n && (c = (uint)(text[i] - '0')) <= 9 && i - from < 4) { exponent = exponent * 10 + (int)c; i++; }
+            while (i < n && (c = At(text, i) - '0') <= 9 && i - from < 4) { exponent = exponent * 10 + (int)c; i++; }
             if (i == from) return false;
             power += minus ? -exponent : exponent;
         }
@@ -81,4 +85,8 @@ internal static class PlainDecimal
         length = i;
         return true;
     }
+
+    /// <summary>The code unit at <paramref name="i"/> as a number (an ASCII character has the same value in both).</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
+    private static uint At<TChar>(ReadOnlySpan<TChar> text, int i) where TChar : unmanaged, IBinaryInteger<TChar> => uint.CreateTruncating(text[i]);
 }

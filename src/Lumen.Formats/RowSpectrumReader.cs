@@ -1,5 +1,6 @@
 using System.Buffers;
 using System.Globalization;
+using System.Text;
 using Lumen.Analysis;
 using Lumen.Spectra;
 
@@ -137,8 +138,24 @@ public static class RowSpectrumReader
         int lineNo = 0, rows = 0;
         var preamble = new List<KeyValuePair<string, string>>();
         RowParser? parser = null;
-        while ((line = reader.ReadLine()) is not null)
+        var utf8 = spans && reader is LineReader { IsUtf8: true } bytes ? bytes : null;
+        while (true)
         {
+            if (parser is not null && utf8 is not null && parser.TakesUtf8)
+            {
+                // After the header, the rows of a UTF-8 input stay bytes until a worker parses them (issue 16).
+                var kind = NextRowUtf8(utf8, out var rowText, out var rowBytes);
+                if (kind == RowLine.End) break;
+                lineNo++;
+                if (kind == RowLine.Blank) continue;
+                rows++;
+                int atLine = lineNo;
+                var rp = parser;
+                if (rowBytes is not null) yield return () => rp.Parse(rowBytes, atLine);
+                else yield return () => rp.Parse(rowText!, atLine);
+                continue;
+            }
+            if ((line = reader.ReadLine()) is null) break;
             lineNo++;
             if (lineNo == 1 && line.Length > 0 && line[0] == '\uFEFF') line = line[1..];
             var t = line.Trim();
@@ -197,6 +214,31 @@ public static class RowSpectrumReader
         }
     }
 
+    private enum RowLine { End, Blank, Row }
+
+    /// <summary>
+    /// The next line after the header, as the string path would see it (<c>line.Trim()</c>): blank, or a row as UTF-8
+    /// bytes when its ends are ASCII other than white space (then trimming the ASCII white space around it is all the
+    /// trimming there is), else as the trimmed string (a line padded with, say, a no-break space).
+    /// </summary>
+    private static RowLine NextRowUtf8(LineReader reader, out string? text, out byte[]? bytes)
+    {
+        text = null;
+        bytes = null;
+        if (!reader.TryReadLineUtf8(out var line)) return RowLine.End;
+        int start = 0, end = line.Length;
+        while (start < end && line[start] < 0x80 && char.IsWhiteSpace((char)line[start])) start++;
+        while (end > start && line[end - 1] < 0x80 && char.IsWhiteSpace((char)line[end - 1])) end--;
+        if (start == end) return RowLine.Blank;
+        if (line[start] < 0x80 && line[end - 1] < 0x80)
+        {
+            bytes = line[start..end].ToArray();
+            return RowLine.Row;
+        }
+        text = Encoding.UTF8.GetString(line).Trim();
+        return text.Length == 0 ? RowLine.Blank : RowLine.Row;
+    }
+
     /// <summary>Parses data rows once the header is known: immutable, so rows may be parsed on any thread.</summary>
     private sealed class RowParser
     {
@@ -232,6 +274,51 @@ public static class RowSpectrumReader
         private readonly Spectrum? _grid;
 
         public InputRecord Parse(string row, int ln) => (_spans ? TryParseFast(row, ln) : null) ?? ParseCells(row, ln);
+
+        /// <summary>True when rows may come as UTF-8 bytes: an ASCII delimiter other than white space.</summary>
+        public bool TakesUtf8 => _spans && _d < 0x80 && _d != ' ';
+
+        /// <summary>
+        /// A row as UTF-8 bytes (trimmed as <see cref="NextRowUtf8"/> does): the common row (ID and metadata cells, then
+        /// plain decimals, an optional trailing delimiter) read from the bytes; any other row decoded and given to
+        /// <see cref="Parse(string, int)"/>, so both give the same record and diagnostics have one source.
+        /// </summary>
+        public InputRecord Parse(byte[] row, int ln)
+        {
+            var rented = ArrayPool<double>.Shared.Rent(_wavelengths.Length); // the spectrum keeps its own copy
+            try { return TryParseFast(row, rented.AsSpan(0, _wavelengths.Length), ln) ?? Parse(Encoding.UTF8.GetString(row), ln); }
+            finally { ArrayPool<double>.Shared.Return(rented); }
+        }
+
+        private InputRecord? TryParseFast(ReadOnlySpan<byte> text, Span<double> values, int ln)
+        {
+            byte d = (byte)_d;
+            var idCells = _idColumns == 0 ? [] : new string[_idColumns];
+            int cell = 0, pos = 0;
+            while (true)
+            {
+                int v = cell - _idColumns;
+                if (v >= 0 && v < values.Length)
+                {
+                    if (!PlainDecimal.TryParseCell(text[pos..], d, out values[v], out int length)) return null;
+                    pos += length + 1;
+                    cell++;
+                    if (pos > text.Length) break; // that was the last cell
+                    continue;
+                }
+                int at = text[pos..].IndexOf(d);
+                int end = at < 0 ? text.Length : pos + at;
+                // An ID or metadata cell: decoded, then trimmed exactly as the string path trims it.
+                if (cell < _idColumns) idCells[cell] = Encoding.UTF8.GetString(text[pos..end]).Trim().Trim('"').Trim();
+                else if (!(at < 0 && end == pos && cell == _expectedCells && cell + 1 > 2)) return null; // only a trailing delimiter may follow
+                cell++;
+                if (at < 0) break;
+                pos = end + 1;
+            }
+            if (cell < _expectedCells || (cell > _expectedCells && cell != _expectedCells + 1)) return null;
+            string name = _idColumns > 0 && idCells[0].Length > 0 ? idCells[0] : $"{_stem}:{ln}";
+            return Built(values, name, ln, Metadata(idCells));
+        }
 
         /// <summary>
         /// The common case without per-cell strings (issue 16): cells found and trimmed as spans, numbers parsed from the

@@ -36,19 +36,20 @@ public static class SpectrumFiles
     {
         ArgumentNullException.ThrowIfNull(path);
         static IEnumerable<Func<InputRecord>> One(InputRecord r) => [() => r];
-        if (path == "-") return ReadOnce(() => (stdin ?? Console.In, null), "-", "stdin", unit, layout, progress);
+        if (path == "-") return ReadOnce(() => (new LineReader(stdin ?? Console.In), null), "-", "stdin", unit, layout, progress);
         if (Directory.Exists(path)) return One(ErrorRecord.ForFile(path, "is a folder; give the folder itself as an input to read the spectrum files in it"));
         if (!File.Exists(path)) return One(ErrorRecord.ForFile(path, "file not found"));
         return ReadOnce(() =>
         {
-            var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
-            return (new StreamReader(stream, Encoding.UTF8, detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16), stream);
+            var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 0); // LineReader buffers
+            try { return (LineReader.Open(stream), stream); }
+            catch { stream.Dispose(); throw; }
         }, path, Path.GetFileNameWithoutExtension(path), unit, layout, progress);
     }
 
-    private static IEnumerable<Func<InputRecord>> ReadOnce(Func<(TextReader Reader, Stream? Stream)> open, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
+    private static IEnumerable<Func<InputRecord>> ReadOnce(Func<(LineReader Lines, Stream? Stream)> open, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
     {
-        TextReader text;
+        LineReader text;
         Stream? stream;
         try { (text, stream) = open(); }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -59,9 +60,9 @@ public static class SpectrumFiles
         return Stream(text, stream, source, stem, unit, layout, progress);
     }
 
-    private static IEnumerable<Func<InputRecord>> Stream(TextReader text, Stream? stream, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
+    private static IEnumerable<Func<InputRecord>> Stream(LineReader lines, Stream? stream, string source, string stem, SpectralUnit? unit, TableLayout? layout, ReadProgress? progress)
     {
-        using var lines = new LineReader(text);
+        using var _ = lines;
         long reported = 0;
         IEnumerator<Func<InputRecord>>? records = null;
         static IEnumerable<Func<InputRecord>> Ready(IEnumerable<InputRecord> all) => all.Select(r => (Func<InputRecord>)(() => r));

@@ -45,7 +45,19 @@ public sealed class ParallelParseTests : IDisposable
             ["blend.csv"] = $"id,{wl}\n" + string.Join('\n', Enumerable.Range(0, 48).Select(k => $"B{k},{Row(i => BlendValue(4200 + 31.3 * k, 380 + 5 * i))}")) + "\n",
         };
         foreach (var (name, text) in files) File.WriteAllText(Path.Combine(_dir, name), text);
-        return [.. files.Keys.Select(n => Path.Combine(_dir, n)), Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"),
+        // Bytes the UTF-8 row path (issue 16) must read exactly as a StreamReader's characters: encoding marks, CR LF,
+        // padding that only Unicode calls white space, characters beyond ASCII in IDs and cells, malformed bytes.
+        byte[] U(string text) => System.Text.Encoding.UTF8.GetBytes(text);
+        var raw = new Dictionary<string, byte[]>
+        {
+            ["utf8-mark.csv"] = [0xEF, 0xBB, 0xBF, .. U($"id,lot,{wl}\r\nA,ü,{Row(i => "1.5")}\r\n\r\nB,€,{Row(i => "2")}\r\n")],
+            ["utf16.csv"] = [.. System.Text.Encoding.Unicode.GetPreamble(), .. System.Text.Encoding.Unicode.GetBytes($"id,lot,{wl}\r\nA,ü,{Row(i => "1.5")}\r\nB,x,{Row(i => i == 3 ? "x" : "2")}\r\n")],
+            ["unicode-space.csv"] = U($"id,{wl}\n\u00A0A,{Row(i => "1")}\u2003\n\u00A0\n\u3000\nB,{Row(i => "2")}\u00A0\nC\u00A0,{Row(i => i == 80 ? "3\u00A0" : "3")}\nD,{Row(i => i == 0 ? "\u00A04" : "4")}\n"),
+            ["malformed.csv"] = [.. U($"id,{wl}\nA"), 0xFF, 0xC3, .. U($",{Row(i => "1")}\nB,"), .. U(Row(i => "2"))[..40], 0xE2, 0x82, .. U(Row(i => "2"))[40..], .. U($"\nC,{Row(i => "3")}"), 0xC3, .. U("\r")],
+            ["no-final-newline.csv"] = U($"id,{wl}\nA,{Row(i => "1")}\r\nB,{Row(i => "2")}\r"),
+        };
+        foreach (var (name, bytes) in raw) File.WriteAllBytes(Path.Combine(_dir, name), bytes);
+        return [.. files.Keys.Concat(raw.Keys).Select(n => Path.Combine(_dir, n)), Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"),
             Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv")];
     }
 
@@ -98,7 +110,7 @@ public sealed class ParallelParseTests : IDisposable
     }
 
     [Fact]
-    public void The_span_parser_equals_the_per_cell_parser_on_every_corpus_file()
+    public void The_span_and_utf8_parsers_equal_the_per_cell_parser_on_every_corpus_file()
     {
         int spectra = 0;
         foreach (var file in Corpus())
@@ -109,8 +121,15 @@ public sealed class ParallelParseTests : IDisposable
                 using var reader = new StreamReader(file);
                 return Lumen.Formats.RowSpectrumReader.ReadDeferred(reader, file, stem, null, spans).Select(p => Describe(p())).ToList();
             }
+            List<string> ParseUtf8()
+            {
+                using var reader = LineReader.Open(File.OpenRead(file)); // rows kept as UTF-8 bytes until parsed
+                return Lumen.Formats.RowSpectrumReader.ReadDeferred(reader, file, stem, null, true).Select(p => Describe(p())).ToList();
+            }
             var fast = Parse(true);
-            Assert.Equal(Parse(false), fast);
+            var perCell = Parse(false);
+            Assert.Equal(perCell, fast);
+            Assert.Equal(perCell, ParseUtf8());
             spectra += fast.Count(d => !d.Contains("Error", StringComparison.Ordinal) && !d.Contains(": ", StringComparison.Ordinal));
         }
         Assert.True(spectra > 200, $"only {spectra} spectra compared");

@@ -111,11 +111,29 @@ public static class Program
 
     private static IEnumerable<InputRecord> Detected(byte[] input)
     {
-        using var lines = new LineReader(new StreamReader(new MemoryStream(input), Encoding.UTF8, true));
-        var layout = lines.PeekFirstDataLine() is { } first ? RowSpectrumReader.DetectLayout(first) : TableLayout.Columns;
-        var records = layout == TableLayout.Rows ? RowSpectrumReader.Read(lines, "fuzz.csv", "fuzz") : DelimitedSpectrumReader.Read(lines, "fuzz.csv", "fuzz");
-        return records.ToList();
+        // As a file is read: UTF-8 rows stay bytes until parsed (LineReader.Open); rows are also read as characters,
+        // and both must give the same records.
+        List<InputRecord> Read(LineReader lines)
+        {
+            var layout = lines.PeekFirstDataLine() is { } first ? RowSpectrumReader.DetectLayout(first) : TableLayout.Columns;
+            var records = layout == TableLayout.Rows ? RowSpectrumReader.Read(lines, "fuzz.csv", "fuzz") : DelimitedSpectrumReader.Read(lines, "fuzz.csv", "fuzz");
+            return records.ToList();
+        }
+        using var bytes = LineReader.Open(new MemoryStream(input));
+        using var characters = new LineReader(new StreamReader(new MemoryStream(input), Encoding.UTF8, true));
+        var fromBytes = Read(bytes);
+        var fromCharacters = Read(characters);
+        if (!fromBytes.Select(Describe).SequenceEqual(fromCharacters.Select(Describe)))
+            throw new InvalidOperationException("the UTF-8 reader and the character reader disagree");
+        return fromBytes;
     }
+
+    private static string Describe(InputRecord r) => r switch
+    {
+        SpectrumRecord s => $"{s.Location}|{s.Name}|{string.Join(';', s.Metadata)}|{string.Join(',', s.Spectrum.Values.ToArray())}",
+        ErrorRecord e => $"{e.Location}|{e.Name}|{string.Join(';', e.Metadata)}|{e.Error}",
+        _ => "?",
+    };
 
     private static int Assess(byte[] input)
     {
