@@ -94,4 +94,49 @@ public class PlainDecimalTests
         }
         Assert.True(taken > 100_000, $"only {taken} took the fast path");
     }
+
+    /// <summary>The cell reader on UTF-8 bytes (the rows of a batch) against the same on characters, which the tests above
+    /// hold to .NET's parser: the same answer, value (bit for bit) and length on random cells followed by random text,
+    /// after every byte value, and around the 2^53 limit.</summary>
+    [Fact]
+    public void Utf8_cells_equal_character_cells_bit_for_bit()
+    {
+        var rng = new Random(20261203);
+        const string alphabet = "01234567890123456789012345678901234567890123456789..-+eE,; x:";
+        int taken = 0;
+        void Compare(string text)
+        {
+            bool fromChars = PlainDecimal.TryParseCell(text.AsSpan(), ',', out double a, out int lengthA);
+            var bytes = System.Text.Encoding.UTF8.GetBytes(text);
+            bool fromBytes = PlainDecimal.TryParseCell<byte>(bytes, (byte)',', out double b, out int lengthB);
+            Assert.True(fromChars == fromBytes, text);
+            if (!fromChars) return;
+            taken++;
+            Assert.True(BitConverter.DoubleToInt64Bits(a) == BitConverter.DoubleToInt64Bits(b) && lengthA == lengthB, $"{text}: {a:R}/{lengthA} vs {b:R}/{lengthB}");
+        }
+        for (int n = 0; n < 300_000; n++)
+        {
+            var chars = new char[rng.Next(0, 40)];
+            for (int i = 0; i < chars.Length; i++) chars[i] = alphabet[rng.Next(alphabet.Length)];
+            Compare(new string(chars));
+            // A plain decimal of 1–20 digits, then a delimiter and more digits (the row's next cell).
+            string digits = string.Concat(Enumerable.Range(0, rng.Next(1, 21)).Select(_ => (char)('0' + rng.Next(10))));
+            int point = rng.Next(0, digits.Length + 1);
+            Compare((rng.Next(3) == 0 ? "-" : "") + digits[..point] + (rng.Next(2) == 0 ? "." : "") + digits[point..] + ",12345678,9");
+        }
+        // Every byte value after a digit run of every length up to 11.
+        for (int run = 0; run < 12; run++)
+            for (int b = 0; b < 256; b++)
+            {
+                var bytes = System.Text.Encoding.ASCII.GetBytes("0.12345678901"[..Math.Max(0, run)] + "\0" + "7777777777,1");
+                bytes[Math.Max(0, run)] = (byte)b;
+                string text = b < 0x80 ? System.Text.Encoding.ASCII.GetString(bytes) : System.Text.Encoding.Latin1.GetString(bytes);
+                bool fromChars = PlainDecimal.TryParseCell(text.AsSpan(), ',', out double a, out int lengthA);
+                bool fromBytes = PlainDecimal.TryParseCell<byte>(bytes, (byte)',', out double v, out int lengthB);
+                Assert.True(fromChars == fromBytes && (!fromChars || (a.Equals(v) && lengthA == lengthB)), $"run {run}, byte {b}");
+            }
+        foreach (var edge in new[] { "9007199254740991", "9007199254740992", "900719925474099.1", "90071992547409910", "0.9007199254740991", "0000000000000000000009007199254740991" })
+            Compare(edge + ",1");
+        Assert.True(taken > 100_000, $"only {taken} cells parsed");
+    }
 }
