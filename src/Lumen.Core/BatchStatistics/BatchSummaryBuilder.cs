@@ -1,3 +1,4 @@
+using System.Runtime.InteropServices;
 using Lumen.Analysis;
 using Lumen.Colorimetry;
 using Lumen.Conformance;
@@ -188,30 +189,49 @@ public sealed class BatchSummaryBuilder
     }
 
     /// <summary>Linear-interpolated percentile (common practice, "type 7").</summary>
-    /// <param name="values">Values (copied and sorted).</param>
+    /// <param name="values">Values (copied; see <see cref="OrderStatistics.Percentile"/>).</param>
     /// <param name="p">Fraction in [0, 1].</param>
     /// <returns>The percentile, NaN when empty.</returns>
     public static double Percentile(IReadOnlyCollection<double> values, double p)
     {
         ArgumentNullException.ThrowIfNull(values);
-        if (values.Count == 0) return double.NaN;
-        var a = values.ToArray();
-        Array.Sort(a);
-        double h = (a.Length - 1) * p;
-        int i = (int)Math.Floor(h);
-        return i + 1 < a.Length ? a[i] + (h - i) * (a[i + 1] - a[i]) : a[i];
+        return OrderStatistics.Percentile(values.ToArray(), p);
     }
 
-    private double MaxPairwise()
+    private double MaxPairwise() => LargestDistance(CollectionsMarshal.AsSpan(_u), CollectionsMarshal.AsSpan(_v));
+
+    /// <summary>
+    /// The largest distance between two points (u′v′ here): the largest distance between two vertices of their convex
+    /// hull (monotone chain, A. M. Andrew, Information Processing Letters 9(5), 1979). Points strictly inside the
+    /// quadrilateral of the four extreme points cannot be hull vertices and are dropped before the sort (S. G. Akl and
+    /// G. T. Toussaint, Information Processing Letters 7(5), 1978): in a batch's tight cloud that leaves a few percent,
+    /// and sorting 100,000 pairs took tens of milliseconds after the last row.
+    /// </summary>
+    internal static double LargestDistance(ReadOnlySpan<float> u, ReadOnlySpan<float> v)
     {
-        int n = _u.Count;
+        int n = u.Length;
         if (n < 2) return 0;
-        // Convex hull (monotone chain), then the largest distance between hull vertices.
-        // One array of n points sorted in place (no hashing or LINQ buffers: this runs on millions of units).
-        var pts = new (double, double)[n];
-        for (int i = 0; i < n; i++) pts[i] = (_u[i], _v[i]);
-        Array.Sort(pts);
+        int left = 0, right = 0, bottom = 0, top = 0;
+        for (int i = 1; i < n; i++)
+        {
+            if (u[i] < u[left]) left = i;
+            if (u[i] > u[right]) right = i;
+            if (v[i] < v[bottom]) bottom = i;
+            if (v[i] > v[top]) top = i;
+        }
+        (double, double) l = (u[left], v[left]), b = (u[bottom], v[bottom]), r = (u[right], v[right]), t = (u[top], v[top]);
         static double Cross((double, double) o, (double, double) a, (double, double) b) => (a.Item1 - o.Item1) * (b.Item2 - o.Item2) - (a.Item2 - o.Item2) * (b.Item1 - o.Item1);
+        var candidates = new List<(double, double)>();
+        for (int i = 0; i < n; i++)
+        {
+            (double, double) p = (u[i], v[i]);
+            // Counter-clockwise left, bottom, right, top: strictly left of every edge is strictly inside (a repeated
+            // corner gives an edge of no length, where nothing is strictly inside, so nothing is dropped).
+            if (Cross(l, b, p) > 0 && Cross(b, r, p) > 0 && Cross(r, t, p) > 0 && Cross(t, l, p) > 0) continue;
+            candidates.Add(p);
+        }
+        var pts = candidates.ToArray();
+        Array.Sort(pts);
         var hull = new List<(double, double)>();
         foreach (var p in pts) { while (hull.Count >= 2 && Cross(hull[^2], hull[^1], p) <= 0) hull.RemoveAt(hull.Count - 1); hull.Add(p); }
         int lower = hull.Count + 1;
@@ -285,10 +305,5 @@ public sealed class BatchSummaryBuilder
         }
     }
 
-    private static double Median(double[] a)
-    {
-        Array.Sort(a);
-        int n = a.Length;
-        return n % 2 == 1 ? a[n / 2] : 0.5 * (a[n / 2 - 1] + a[n / 2]);
-    }
+    private static double Median(double[] a) => OrderStatistics.Median(a);
 }
