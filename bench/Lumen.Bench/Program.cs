@@ -11,7 +11,14 @@ public static class Program
 {
     public static void Main(string[] args)
     {
-        if (args.Length >= 1 && args[0] == "batch-scale") { BatchScale.Run(args.Length > 1 ? int.Parse(args[1], CultureInfo.InvariantCulture) : 1_000_000, args.Length > 2 ? int.Parse(args[2], CultureInfo.InvariantCulture) : 5); return; }
+        if (args.Length >= 1 && args[0] == "batch-scale")
+        {
+            // batch-scale [rows] [step nm] [--repeat N]
+            int repeat = Array.IndexOf(args, "--repeat") is int r and > 0 && r + 1 < args.Length ? int.Parse(args[r + 1], CultureInfo.InvariantCulture) : 3;
+            var plain = args.Skip(1).TakeWhile(a => a != "--repeat").ToArray();
+            BatchScale.Run(plain.Length > 0 ? int.Parse(plain[0], CultureInfo.InvariantCulture) : 1_000_000, plain.Length > 1 ? int.Parse(plain[1], CultureInfo.InvariantCulture) : 5, Math.Max(1, repeat));
+            return;
+        }
         if (args.Length >= 5 && args[0] == "batch-child") { BatchScale.Child(args[1], args[2], args[3], args[4]); return; }
         var results = Path.GetFullPath(Path.Combine(FindRoot(), "bench", "results"));
         var config = DefaultConfig.Instance
