@@ -4,8 +4,9 @@ namespace Lumen.Formats;
 
 /// <summary>
 /// One column of an output schema: its CSV name, its table heading, and how a row gives its cell. Numbers are written
-/// round-trip ("R", invariant culture) in CSV and with <see cref="TextFormat"/> in text tables; a missing or non-finite
-/// number is an empty CSV cell and "—" in a table.
+/// round-trip in CSV (the shortest text that reads back as the same double, laid out as .NET's "R" format:
+/// <see cref="ShortestDouble"/>) and with <see cref="TextFormat"/> in text tables; a missing or non-finite number is an
+/// empty CSV cell and "—" in a table.
 /// </summary>
 /// <typeparam name="T">The row type.</typeparam>
 public sealed class Column<T>
@@ -62,7 +63,7 @@ public sealed class Column<T>
     /// <returns>The cell text.</returns>
     public string CsvCell(T row)
     {
-        if (_number is not null) return NumberOf(row) is { } x ? x.ToString("R", Inv) : "";
+        if (_number is not null) return NumberOf(row) is { } x ? ShortestDouble.ToText(x) : "";
         return _text!(row) is { } s ? Csv.Quote(s) : "";
     }
 
@@ -74,8 +75,8 @@ public sealed class Column<T>
         ArgumentNullException.ThrowIfNull(output);
         if (_number is null) { output.Write(CsvCell(row)); return; }
         if (NumberOf(row) is not { } x) return;
-        Span<char> buffer = stackalloc char[32]; // "R" needs at most 24 characters for a double
-        if (x.TryFormat(buffer, out int written, "R", Inv)) output.Write(buffer[..written]);
+        Span<char> buffer = stackalloc char[32]; // at most 24 characters for a double
+        if (ShortestDouble.TryFormat(x, buffer, out int written)) output.Write(buffer[..written]);
         else output.Write(x.ToString("R", Inv));
     }
 
