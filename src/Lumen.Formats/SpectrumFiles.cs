@@ -189,8 +189,9 @@ public static class SpectrumFiles
 
     /// <summary>
     /// The metadata keys a file's records carry — its preamble keys, then the row layout's metadata column names — read
-    /// from the lines up to its header (every record of a file has the same keys). Empty for standard input (which
-    /// cannot be read twice) and for files that cannot be read.
+    /// from the lines up to its header (every record of a file has the same keys). Empty for standard input, pipes and
+    /// anything else that cannot be read twice (reading their first lines here would take them from the real read), and
+    /// for files that cannot be read.
     /// </summary>
     /// <param name="path">File path.</param>
     /// <param name="layout">Layout, or null to detect it.</param>
@@ -202,7 +203,16 @@ public static class SpectrumFiles
         var keys = new List<string>();
         try
         {
-            using var reader = new LineReader(new StreamReader(path, Encoding.UTF8, detectEncodingFromByteOrderMarks: true));
+            // A named pipe reports no length and is not even opened: opening it here and closing it would end its writer's
+            // stream before the real read. An empty file has no keys either.
+            if (new FileInfo(path).Length == 0) return [];
+            var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 0);
+            if (!stream.CanSeek)
+            {
+                stream.Dispose(); // a pipe (process substitution, a FIFO): its lines are the real read's
+                return [];
+            }
+            using var reader = LineReader.Open(stream);
             string? line;
             while ((line = reader.ReadLine()) is not null)
             {
