@@ -68,7 +68,11 @@ internal static class ShortestDouble
         // The digits, most significant first.
         Span<char> d = stackalloc char[20];
         int n = 0;
-        for (ulong rest = digits; rest > 0; rest /= 10) d[n++] = (char)('0' + (int)(rest % 10));
+        for (ulong rest = digits; rest > 0;)
+        {
+            (rest, ulong digit) = Math.DivRem(rest, 10UL);
+            d[n++] = (char)('0' + (int)digit);
+        }
         d[..n].Reverse();
         int x = e10 + n - 1; // the first digit's power of ten
         if (x > -5 && x < 17)
@@ -236,12 +240,16 @@ internal static class ShortestDouble
         return (output, e10 + removed);
     }
 
+    /// <summary>(m · mul) >> j for a 125-bit multiplier, with 64 &lt; j &lt; 128 (Ryū's mulShift64).</summary>
     [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static ulong MulShift(ulong m, (ulong Low, ulong High) mul, int j)
     {
-        UInt128 b0 = (UInt128)m * mul.Low;
-        UInt128 b2 = (UInt128)m * mul.High;
-        return (ulong)(((b0 >> 64) + b2) >> (j - 64));
+        ulong high0 = Math.BigMul(m, mul.Low, out _);
+        ulong high1 = Math.BigMul(m, mul.High, out ulong low1);
+        ulong sum = high0 + low1;
+        if (sum < high0) high1++; // the carry
+        int shift = j - 64;
+        return (high1 << (64 - shift)) | (sum >> shift);
     }
 
     private static int Log10Pow2(int e) => (int)(((uint)e * 78913) >> 18);

@@ -119,3 +119,24 @@ public sealed class ShortestDoubleTests
         Assert.False(ShortestDouble.TryFormat(double.NegativeInfinity, buffer, out _));
     }
 }
+
+/// <summary>The robust-z column's text, now written through the shortest round-trip digits, equals the custom format it
+/// replaced (rounded to three decimals, <c>0.###</c>) on every kind of z.</summary>
+public sealed class RobustZTextTests
+{
+    [Fact]
+    public void Equals_the_three_decimal_format()
+    {
+        var rng = new Random(7);
+        var inv = CultureInfo.InvariantCulture;
+        var values = new List<double> { 0, -0.0, 0.0004, -0.0004, 0.0005, -0.0005, 0.0015, 1.0005, 2.5, -2.5, 3.5, 21.522, 1e11 + 0.123, 999_999_999_999.999, 1e12, 1e15, 1e20, -1e20, 123456.7895 };
+        for (int i = 0; i < 200_000; i++)
+        {
+            values.Add((rng.NextDouble() - 0.5) * 10);
+            values.Add((rng.NextDouble() - 0.5) * Math.Pow(10, rng.Next(-6, 16)));
+            values.Add(Math.Round((rng.NextDouble() - 0.5) * 100, rng.Next(0, 5)));
+        }
+        foreach (double z in values)
+            Assert.True(Math.Round(z, 3).ToString("0.###", inv) == OutlierColumns.ZText(z), $"{z:R}: {Math.Round(z, 3).ToString("0.###", inv)} vs {OutlierColumns.ZText(z)}");
+    }
+}
