@@ -233,21 +233,9 @@ public sealed class LineReader : TextReader
     }
 
     /// <summary>Bytes already read, then the rest of a stream: hands a sniffed start back to a <see cref="StreamReader"/>.</summary>
-    private sealed class PrefixedStream(byte[] prefix, Stream rest) : Stream
+    private sealed class PrefixedStream(byte[] prefix, Stream rest) : ForwardOnlyStream
     {
         private int _at;
-
-        public override bool CanRead => true;
-        public override bool CanSeek => false;
-        public override bool CanWrite => false;
-        public override long Length => throw new NotSupportedException();
-        public override long Position { get => throw new NotSupportedException(); set => throw new NotSupportedException(); }
-        public override void Flush() { }
-        public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
-        public override void SetLength(long value) => throw new NotSupportedException();
-        public override void Write(byte[] buffer, int offset, int count) => throw new NotSupportedException();
-
-        public override int Read(byte[] buffer, int offset, int count) => Read(buffer.AsSpan(offset, count));
 
         public override int Read(Span<byte> buffer)
         {

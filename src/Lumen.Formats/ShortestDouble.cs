@@ -191,9 +191,8 @@ internal static class ShortestDouble
         if (vmIsTrailingZeros || vrIsTrailingZeros)
         {
             // The general case (rare): exact ties and interval ends that are themselves short decimals.
-            while (vp / 10 > vm / 10)
+            void RemoveDigit()
             {
-                vmIsTrailingZeros &= vm % 10 == 0;
                 vrIsTrailingZeros &= lastRemovedDigit == 0;
                 lastRemovedDigit = (uint)(vr % 10);
                 vr /= 10;
@@ -201,18 +200,13 @@ internal static class ShortestDouble
                 vm /= 10;
                 removed++;
             }
-            if (vmIsTrailingZeros)
+            while (vp / 10 > vm / 10)
             {
-                while (vm % 10 == 0)
-                {
-                    vrIsTrailingZeros &= lastRemovedDigit == 0;
-                    lastRemovedDigit = (uint)(vr % 10);
-                    vr /= 10;
-                    vp /= 10;
-                    vm /= 10;
-                    removed++;
-                }
+                vmIsTrailingZeros &= vm % 10 == 0;
+                RemoveDigit();
             }
+            if (vmIsTrailingZeros)
+                while (vm % 10 == 0) RemoveDigit();
             if (vrIsTrailingZeros && lastRemovedDigit == 5 && vr % 2 == 0) lastRemovedDigit = 4; // round half to even
             output = vr + ((vr == vm && (!acceptBounds || !vmIsTrailingZeros)) || lastRemovedDigit >= 5 ? 1UL : 0UL);
         }

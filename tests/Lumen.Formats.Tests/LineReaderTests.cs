@@ -128,25 +128,15 @@ public sealed class LineReaderTests
     }
 
     /// <summary>A stream that hands out a few bytes at a time, as a pipe may.</summary>
-    private sealed class Trickle(byte[] data, int seed) : Stream
+    private sealed class Trickle(byte[] data, int seed) : ForwardOnlyStream
     {
         private readonly Random _random = new(seed);
         private int _at;
 
-        public override bool CanRead => true;
-        public override bool CanSeek => false;
-        public override bool CanWrite => false;
-        public override long Length => throw new NotSupportedException();
-        public override long Position { get => throw new NotSupportedException(); set => throw new NotSupportedException(); }
-        public override void Flush() { }
-        public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
-        public override void SetLength(long value) => throw new NotSupportedException();
-        public override void Write(byte[] buffer, int offset, int count) => throw new NotSupportedException();
-
-        public override int Read(byte[] buffer, int offset, int count)
+        public override int Read(Span<byte> buffer)
         {
-            int n = Math.Min(Math.Min(count, _random.Next(1, 10)), data.Length - _at);
-            data.AsSpan(_at, n).CopyTo(buffer.AsSpan(offset));
+            int n = Math.Min(Math.Min(buffer.Length, _random.Next(1, 10)), data.Length - _at);
+            data.AsSpan(_at, n).CopyTo(buffer);
             _at += n;
             return n;
         }
