@@ -16,7 +16,7 @@ namespace Lumen.Formats;
 /// </remarks>
 public sealed class LineReader : TextReader
 {
-    /// <summary>Longest line accepted, in characters (4 Mi: about 400 000 cells; far beyond any instrument's row).</summary>
+    /// <summary>Longest line accepted, in characters (in bytes for UTF-8 input; 4 Mi: about 400 000 cells; far beyond any instrument's row).</summary>
     public const int MaxLineChars = 4 * 1024 * 1024;
 
     private readonly TextReader? _inner; // characters, or

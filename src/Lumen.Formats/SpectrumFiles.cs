@@ -206,12 +206,8 @@ public static class SpectrumFiles
             // A named pipe reports no length and is not even opened: opening it here and closing it would end its writer's
             // stream before the real read. An empty file has no keys either.
             if (new FileInfo(path).Length == 0) return [];
-            var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 0);
-            if (!stream.CanSeek)
-            {
-                stream.Dispose(); // a pipe (process substitution, a FIFO): its lines are the real read's
-                return [];
-            }
+            using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 0);
+            if (!stream.CanSeek) return []; // a pipe (process substitution, a FIFO): its lines are the real read's
             using var reader = LineReader.Open(stream);
             string? line;
             while ((line = reader.ReadLine()) is not null)
