@@ -126,7 +126,7 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         {
             // Rows stream to a scratch file; once the batch is complete, the copy adds each row's robust z and
             // outlier flag, which need the whole batch (and, for Parquet, gives the columns their types).
-            void Produce(Action<TextReader, BatchSummaryBuilder, IReadOnlyList<bool>> finish)
+            void Produce(Action<Stream, BatchSummaryBuilder, IReadOnlyList<bool>> finish)
             {
                 var builder = new BatchSummaryBuilder(spec!, grouping);
                 string scratch = Path.Combine(Path.GetTempPath(), $"lumen-rows-{Guid.NewGuid():N}.tmp");
@@ -140,13 +140,13 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
                         writer.Complete();
                         numeric = writer.NumericColumns;
                     }
-                    using var back = new StreamReader(scratch, Encoding.UTF8, false, 1 << 16);
+                    using var back = new FileStream(scratch, FileMode.Open, FileAccess.Read, FileShare.Read, bufferSize: 0);
                     finish(back, builder, numeric);
                 }
                 finally { File.Delete(scratch); }
             }
             failure = parquet
-                ? OutputTarget.WriteFile(outPath!, stream => Produce((back, builder, numeric) => ParquetResults.Write(back, numeric, stream, builder.RobustZ, BatchSummaryBuilder.OutlierZ,
+                ? OutputTarget.WriteFile(outPath!, stream => Produce((back, builder, numeric) => ParquetResults.Write(new StreamReader(back, Encoding.UTF8, false, 1 << 16), numeric, stream, builder.RobustZ, BatchSummaryBuilder.OutlierZ,
                     new Dictionary<string, string>(StringComparer.Ordinal)
                     {
                         ["lumen.version"] = LumenApp.Version,
