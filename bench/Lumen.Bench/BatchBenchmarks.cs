@@ -110,6 +110,15 @@ public static class BatchScale
         while (f.Read(buffer, 0, buffer.Length) > 0) { }
     }
 
+    /// <summary>The `lumen batch` arguments of a mode (a "1" mode adds --threads 1; under taskset the process sees one core anyway).</summary>
+    private static string[] BatchArguments(string mode, string file, string spec, string output)
+    {
+        var m = Modes.Single(x => x.Mode == mode);
+        string[] threads = mode.EndsWith('1') ? ["--threads", "1"] : [];
+        string[] specArgs = mode.StartsWith("chroma", StringComparison.Ordinal) ? [] : ["--spec", spec];
+        return ["batch", file, .. specArgs, .. m.Args, .. threads, "--out", output, "--summary", output + ".summary.txt"];
+    }
+
     /// <summary>Child process: runs one mode and prints "seconds peakBytes".</summary>
     public static void Child(string mode, string file, string spec, string output)
     {
@@ -119,11 +128,7 @@ public static class BatchScale
         else if (mode == "full") Full(file, spec, output);
         else
         {
-            var m = Modes.Single(x => x.Mode == mode);
-            string[] threads = mode.EndsWith('1') ? ["--threads", "1"] : []; // under taskset the process sees one core anyway
-            string[] args = mode.StartsWith("chroma", StringComparison.Ordinal) ? ["batch", file, .. m.Args, .. threads, "--out", output, "--summary", output + ".summary.txt"]
-                : ["batch", file, "--spec", spec, .. m.Args, .. threads, "--out", output, "--summary", output + ".summary.txt"];
-            Lumen.Cli.LumenApp.Run(args, TextReader.Null, TextWriter.Null, TextWriter.Null);
+            Lumen.Cli.LumenApp.Run(BatchArguments(mode, file, spec, output), TextReader.Null, TextWriter.Null, TextWriter.Null);
         }
         sw.Stop();
         using var p = Process.GetCurrentProcess();
@@ -164,9 +169,7 @@ public static class BatchScale
         // process: what users of the single-file binary get, without the start-up compilation every `dotnet run` build pays.
         (double Seconds, long Peak) Shipped(string lumen, string mode)
         {
-            var m = Modes.Single(x => x.Mode == mode);
-            string[] args = mode.StartsWith("chroma", StringComparison.Ordinal) ? ["batch", file, .. m.Args, "--out", output, "--summary", output + ".summary.txt"]
-                : ["batch", file, "--spec", spec, .. m.Args, "--out", output, "--summary", output + ".summary.txt"];
+            string[] args = BatchArguments(mode, file, spec, output);
             bool timed = File.Exists("/usr/bin/time");
             string[] command = timed ? ["/usr/bin/time", "-f", "PEAK %M", lumen, .. args] : [lumen, .. args];
             Warm(file);

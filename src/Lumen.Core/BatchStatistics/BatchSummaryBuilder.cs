@@ -254,15 +254,15 @@ public sealed class BatchSummaryBuilder
         if (n < 5) return [];
         var work = new double[n];
         for (int i = 0; i < n; i++) work[i] = _u[i];
-        double mu = Median(work);
+        double mu = OrderStatistics.Median(work);
         for (int i = 0; i < n; i++) work[i] = _v[i];
-        double mv = Median(work);
+        double mv = OrderStatistics.Median(work);
         var d = new double[n];
         for (int i = 0; i < n; i++) { double du = _u[i] - mu, dv = _v[i] - mv; d[i] = Math.Sqrt(du * du + dv * dv); }
         d.CopyTo(work, 0);
-        double md = Median(work);
+        double md = OrderStatistics.Median(work);
         for (int i = 0; i < n; i++) work[i] = Math.Abs(d[i] - md);
-        double mad = Median(work);
+        double mad = OrderStatistics.Median(work);
         if (!(mad > 0)) return [];
         var list = new List<Outlier>();
         for (int i = 0; i < n; i++)
@@ -304,6 +304,4 @@ public sealed class BatchSummaryBuilder
             return System.Text.Encoding.UTF8.GetString(block, at + 2, len);
         }
     }
-
-    private static double Median(double[] a) => OrderStatistics.Median(a);
 }
