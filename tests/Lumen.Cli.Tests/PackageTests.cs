@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using System.Runtime.InteropServices;
 using Lumen.Cli;
 
 namespace Lumen.Cli.Tests;
@@ -36,6 +37,76 @@ public sealed class PackageTests : IDisposable
         var neutral = Run("dotnet", $"msbuild \"{project}\" -getProperty:PublishReadyToRun", CliTests.RepoRoot);
         Assert.True(neutral.Code == 0, neutral.Out);
         Assert.NotEqual("true", neutral.Out.Trim());
+        // The native build (NativeAOT) replaces ReadyToRun, and on x64 targets x86-64-v3 unless told otherwise.
+        var native = Run("dotnet", $"msbuild \"{project}\" -getProperty:PublishReadyToRun -getProperty:IlcInstructionSet -p:RuntimeIdentifier=linux-x64 -p:PublishAot=true", CliTests.RepoRoot);
+        Assert.True(native.Code == 0, native.Out);
+        Assert.Contains("\"IlcInstructionSet\": \"x86-64-v3\"", native.Out, StringComparison.Ordinal);
+        Assert.Contains("\"PublishReadyToRun\": \"\"", native.Out, StringComparison.Ordinal);
+    }
+
+    /// <summary>
+    /// Issue 16: the native build (<c>dotnet publish -r RID -p:PublishAot=true</c>) runs every verb with the same
+    /// output, byte for byte, as the managed build: results, summaries, the Parquet file and an image. Built for this
+    /// machine's instruction set (<c>IlcInstructionSet=native</c>) so its vector widths, and so its last digits, match the
+    /// JIT's here. Trimming and native compilation drop anything reached only by reflection; this is where that would show.
+    /// In this class so it never builds beside the pack test (both write the Release build of the same projects).
+    /// </summary>
+    [NativeToolchainFact]
+    public void The_native_build_gives_the_managed_builds_output_byte_for_byte()
+    {
+        string output = Path.Combine(_dir, "native");
+        var publish = Run("dotnet", $"publish \"{Path.Combine(CliTests.RepoRoot, "src", "Lumen.Cli")}\" -c Release -r {RuntimeInformation.RuntimeIdentifier} -p:PublishAot=true -p:IlcInstructionSet=native -o \"{output}\"", CliTests.RepoRoot);
+        Assert.True(publish.Code == 0, publish.Out);
+        string lumen = Path.Combine(output, "lumen");
+        string Example(params string[] parts) => Path.Combine([CliTests.RepoRoot, "examples", .. parts]);
+        string lot = Example("batch", "quillfern-dl30-lot-A17.csv"), spec = Example("batch", "spec-dl30.json");
+        string[][] commands =
+        [
+            ["analyze", .. CliTests.ExampleFiles()],
+            ["analyze", .. CliTests.ExampleFiles(), "--format", "csv"],
+            ["analyze", Example("foyer-panel-4000K.tsv"), "--metrics", "all", "--format", "json"],
+            ["analyze", Example("tm27", "marrowby-stage-halogen.spdx"), "--format", "json"],
+            ["batch", lot, "--spec", spec, "--out", "{out}.csv", "--summary", "{out}.summary.json"],
+            ["batch", lot, "--spec", spec, "--out", "{out}.parquet", "--summary", "{out}.summary.txt"],
+            ["batch", lot, "--spec", spec, "--uncertainty", Example("uncertainty", "array-spectroradiometer.json"), "--draws", "200", "--decision", "guarded", "--format", "jsonl", "--out", "{out}.jsonl"],
+            ["compare", Example("compare", "film-night-sources.csv"), "--filter", Example("compare", "filters"), "--format", "json"],
+            ["mix", Example("mix", "quillfern-tw5-channels.csv"), "--cct", "3000"],
+            ["blackbody", "3000"],
+            ["fit", Example("marrowby-stage-halogen.csv"), "--format", "json"],
+            ["plot", "locus", lot, "-o", "{out}.png"],
+            ["analyze", Path.Combine(_dir, "missing.csv")],
+        ];
+        for (int i = 0; i < commands.Length; i++)
+        {
+            // Each build writes its own files; the names differ only in the folder, which no output mentions.
+            string managedOut = Path.Combine(_dir, "managed", $"c{i}"), nativeOut = Path.Combine(_dir, "native-out", $"c{i}");
+            Directory.CreateDirectory(Path.GetDirectoryName(managedOut)!);
+            Directory.CreateDirectory(Path.GetDirectoryName(nativeOut)!);
+            string[] managedArgs = commands[i].Select(a => a.Replace("{out}", managedOut, StringComparison.Ordinal)).ToArray();
+            string[] nativeArgs = commands[i].Select(a => a.Replace("{out}", nativeOut, StringComparison.Ordinal)).ToArray();
+            var managed = CliTests.Run("", managedArgs);
+            var native = RunArgs(lumen, nativeArgs);
+            string what = string.Join(' ', commands[i]);
+            Assert.True(managed.Code == native.Code, $"{what}: exit {managed.Code} managed, {native.Code} native\n{native.Out}{native.Err}");
+            Assert.Equal(what + "\n" + managed.Out.Replace(managedOut, "{out}", StringComparison.Ordinal), what + "\n" + native.Out.Replace(nativeOut, "{out}", StringComparison.Ordinal));
+            Assert.Equal(what + "\n" + managed.Err.Replace(managedOut, "{out}", StringComparison.Ordinal), what + "\n" + native.Err.Replace(nativeOut, "{out}", StringComparison.Ordinal));
+            foreach (var file in Directory.GetFiles(Path.GetDirectoryName(managedOut)!, $"c{i}.*"))
+            {
+                string twin = Path.Combine(Path.GetDirectoryName(nativeOut)!, Path.GetFileName(file));
+                Assert.True(File.Exists(twin), $"{what}: the native build wrote no {Path.GetFileName(file)}");
+                Assert.True(File.ReadAllBytes(file).AsSpan().SequenceEqual(File.ReadAllBytes(twin)), $"{what}: {Path.GetFileName(file)} differs");
+            }
+        }
+    }
+
+    private static (int Code, string Out, string Err) RunArgs(string file, string[] args)
+    {
+        var psi = new ProcessStartInfo(file, args) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        using var p = Process.Start(psi)!;
+        var o = p.StandardOutput.ReadToEndAsync();
+        var e = p.StandardError.ReadToEndAsync();
+        if (!p.WaitForExit(120_000)) { p.Kill(true); throw new TimeoutException($"{file} {string.Join(' ', args)} did not finish in 2 minutes"); }
+        return (p.ExitCode, o.Result, e.Result);
     }
 
     [Fact]
@@ -57,5 +128,19 @@ public sealed class PackageTests : IDisposable
         Assert.Equal(0, analysis.Code);
         Assert.StartsWith("name,", analysis.Out, StringComparison.Ordinal);
         Assert.Equal(7, analysis.Out.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length); // header + 6 spectra
+    }
+}
+
+/// <summary>A fact that needs a native build: skipped (with the reason) where the native compiler cannot link, that is,
+/// off Linux or without a C toolchain (clang or gcc), which NativeAOT's link step needs.</summary>
+public sealed class NativeToolchainFactAttribute : FactAttribute
+{
+    /// <summary>Sets Skip where no native build can be made.</summary>
+    public NativeToolchainFactAttribute()
+    {
+        if (!OperatingSystem.IsLinux())
+            Skip = "the native build is set up for Linux here (its linker step differs elsewhere).";
+        else if (!(Environment.GetEnvironmentVariable("PATH") ?? "").Split(':').Any(d => File.Exists(Path.Combine(d, "clang")) || File.Exists(Path.Combine(d, "gcc"))))
+            Skip = "no C toolchain (clang or gcc) on PATH; NativeAOT links with one.";
     }
 }
