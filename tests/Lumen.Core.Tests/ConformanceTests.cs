@@ -163,6 +163,23 @@ public class ConformanceTests
         Assert.True(v.Pass);
         Assert.Equal(0.002, v.DeltaUPrimeVPrimeFromTarget!.Value, 9);
     }
+
+    [Theory]
+    [InlineData(ToleranceKind.EllipseSteps, 2.5, "chromaticity: 2.5-step ellipse", "<= 2.5 steps")]
+    [InlineData(ToleranceKind.UPrimeVPrimeRadius, 0.0035, "chromaticity: Δu'v' circle r = 0.0035", "<= 0.0035")]
+    [InlineData(ToleranceKind.Quadrangle, 0, "chromaticity: ANSI C78.377 3000 K quadrangle", "inside (distance to nearest edge, xy)")]
+    public void The_chromaticity_criterion_is_worded_from_the_spec_for_every_unit(ToleranceKind kind, double value, string criterion, string limit)
+    {
+        // Worded once per spec (issue 16) and the same for every unit: two units, two verdicts, the same words.
+        var spec = new PreparedSpec(new ToleranceSpec("w", new ChromaticityTarget(TargetKind.NominalCct, 3000, 0), new ChromaticityTolerance(kind, value), []));
+        var centre = spec.Spec.Target!.Centre;
+        foreach (var c in new[] { centre, Chromaticity.FromUPrimeVPrime(centre.UPrime + 0.001, centre.VPrime) })
+        {
+            var v = spec.Evaluate(c, _ => null);
+            Assert.Equal(criterion, v.Criteria[0].Criterion);
+            Assert.Equal(limit, v.Criteria[0].Limit);
+        }
+    }
 }
 
 public class BatchStatisticsTests

@@ -1,4 +1,4 @@
-using System.Numerics.Tensors;
+using System.Numerics;
 using Lumen.Blackbody;
 using Lumen.Cie;
 using Lumen.Colorimetry;
@@ -99,11 +99,12 @@ public static class Assessor
     {
         var warnings = new List<string>();
         if (CoverageWarning(spectrum) is { } coverage) warnings.Add(coverage);
-        if (NegativeValueWarning(spectrum) is { } negative) warnings.Add(negative);
+        var extremes = Extremes(spectrum.Values);
+        if (spectrum.NegativeSampleCount > 0 && NegativeValueWarning(spectrum.NegativeSampleCount, extremes) is { } negative) warnings.Add(negative);
         // Every relative result is independent of scale, so values far from 1 (subnormal or near the top of the double
         // range) are first scaled by a power of two, which is exact; absolute quantities are scaled back at the end and
         // given only when finite.
-        int exponent = ScaleExponentOf(spectrum);
+        int exponent = ScaleExponentOf(extremes);
         double scale = Math.ScaleB(1.0, exponent); // may itself be subnormal or large; only products with it are used
         var work = exponent == 0 ? spectrum : spectrum.ScaleByPowerOfTwo(-exponent);
         var samples = Resampler.ForCieSums(work);
@@ -176,13 +177,48 @@ public static class Assessor
     /// (peak |value| within 10⁻¹⁸…10¹⁸), else the power of two nearest the peak, so that subnormal values or values near the
     /// top of the double range cannot underflow or overflow in the sums, the adaptation transforms or the colour model.
     /// </summary>
-    /// <param name="spectrum">The spectrum.</param>
+    /// <param name="extremes">The spectrum's smallest and largest value (<see cref="Extremes"/>).</param>
     /// <returns>The exponent e of the scale 2^e (0 for ordinary values and for a black spectrum).</returns>
-    internal static int ScaleExponentOf(Spectrum spectrum)
+    internal static int ScaleExponentOf((double Min, double Max) extremes)
     {
-        double max = Math.Abs(TensorPrimitives.MaxMagnitude(spectrum.Values)); // values are finite (checked on construction)
+        double max = Math.Max(Math.Abs(extremes.Min), Math.Abs(extremes.Max)); // the largest magnitude
         if (max == 0 || (max >= 1e-18 && max <= 1e18)) return 0;
         return Math.ILogB(max);
+    }
+
+    /// <summary>
+    /// The smallest and the largest of finite values, in one vectorised pass (a spectrum's values are finite: checked
+    /// on construction). Issue 16: the sign warning and the scale took three passes (minimum, maximum, largest
+    /// magnitude), about 5 % of a chromaticity-only batch's CPU.
+    /// </summary>
+    /// <param name="values">Finite values.</param>
+    /// <returns>(minimum, maximum); (+∞, −∞) for no values.</returns>
+    internal static (double Min, double Max) Extremes(ReadOnlySpan<double> values)
+    {
+        double min = double.PositiveInfinity, max = double.NegativeInfinity;
+        int i = 0;
+        if (values.Length >= Vector<double>.Count)
+        {
+            var lo = new Vector<double>(values);
+            var hi = lo;
+            for (i = Vector<double>.Count; i <= values.Length - Vector<double>.Count; i += Vector<double>.Count)
+            {
+                var v = new Vector<double>(values[i..]);
+                lo = Vector.Min(lo, v);
+                hi = Vector.Max(hi, v);
+            }
+            for (int k = 0; k < Vector<double>.Count; k++)
+            {
+                min = Math.Min(min, lo[k]);
+                max = Math.Max(max, hi[k]);
+            }
+        }
+        for (; i < values.Length; i++)
+        {
+            min = Math.Min(min, values[i]);
+            max = Math.Max(max, values[i]);
+        }
+        return (min, max);
     }
 
     private static PhotometricResult Rescaled(PhotometricResult p, double scale, List<string> warnings)
@@ -221,14 +257,15 @@ public static class Assessor
     /// reference or stray-light problem). Smaller negatives are only counted in the provenance; all are kept
     /// in the sums, because clipping biases low signals (CIE 167 practice).
     /// </summary>
-    /// <param name="spectrum">The measured spectrum (relative or absolute; any grid the resampler accepts).</param>
+    /// <param name="negativeCount">How many samples are below zero.</param>
+    /// <param name="extremes">The spectrum's smallest and largest value (<see cref="Extremes"/>).</param>
     /// <returns>The warning, or null when there is nothing to say.</returns>
-    internal static string? NegativeValueWarning(Spectrum spectrum)
+    internal static string? NegativeValueWarning(int negativeCount, (double Min, double Max) extremes)
     {
-        if (spectrum.NegativeSampleCount == 0) return null;
-        double peak = Math.Max(0, TensorPrimitives.Max(spectrum.Values)), min = Math.Min(0, TensorPrimitives.Min(spectrum.Values));
+        if (negativeCount == 0) return null;
+        double peak = Math.Max(0, extremes.Max), min = Math.Min(0, extremes.Min);
         return peak > 0 && -min > NegativeWarningFraction * peak
-            ? $"{spectrum.NegativeSampleCount} sample(s) below zero, down to {min / peak * 100:0.0} % of the peak: check the dark reference; values kept in the sums, not clipped."
+            ? $"{negativeCount} sample(s) below zero, down to {min / peak * 100:0.0} % of the peak: check the dark reference; values kept in the sums, not clipped."
             : null;
     }
 

@@ -9,6 +9,7 @@ public sealed class PreparedSpec
     private readonly Chromaticity _centre;
     private readonly StepEllipse? _ellipse;
     private readonly Quadrangle? _quadrangle;
+    private readonly string _toleranceCriterion = "", _toleranceLimit = "";
 
     /// <summary>Prepares a specification: computes the target's centre, 1-step ellipse and quadrangle once.</summary>
     /// <param name="spec">The specification.</param>
@@ -22,6 +23,15 @@ public sealed class PreparedSpec
             _centre = t.Centre;
             _ellipse = EllipseFor(t);
             _quadrangle = spec.Tolerance.Kind == ToleranceKind.Quadrangle ? t.Category!.Quadrangle : null;
+            // The tolerance criterion's name and limit are the same for every unit: worded once here (issue 16: formatting
+            // them per unit was about 1 % of a chromaticity-only batch's CPU).
+            (_toleranceCriterion, _toleranceLimit) = spec.Tolerance.Kind switch
+            {
+                ToleranceKind.Quadrangle => ($"chromaticity: ANSI C78.377 {t.First:0} K quadrangle", "inside (distance to nearest edge, xy)"),
+                ToleranceKind.EllipseSteps => ($"chromaticity: {spec.Tolerance.Value:0.#}-step ellipse", $"<= {spec.Tolerance.Value:0.#} steps"),
+                ToleranceKind.UPrimeVPrimeRadius => ($"chromaticity: Δu'v' circle r = {spec.Tolerance.Value:0.####}", $"<= {spec.Tolerance.Value:0.####}"),
+                _ => ("", ""),
+            };
         }
     }
 
@@ -135,14 +145,14 @@ public sealed class PreparedSpec
                 case ToleranceKind.Quadrangle:
                     var quad = _quadrangle!;
                     double d = quad.SignedDistance(c.SmallX, c.SmallY);
-                    criteria.Add(new CriterionResult($"chromaticity: ANSI C78.377 {target.First:0} K quadrangle", d, "inside (distance to nearest edge, xy)", d, d >= -1e-12,
+                    criteria.Add(new CriterionResult(_toleranceCriterion, d, _toleranceLimit, d, d >= -1e-12,
                         target.Category!.Flexible ? "flexible-CCT tolerance interpolated between neighbouring categories (verify against the standard)" : null));
                     break;
                 case ToleranceKind.EllipseSteps:
-                    criteria.Add(new CriterionResult($"chromaticity: {spec.Tolerance.Value:0.#}-step ellipse", steps, $"<= {spec.Tolerance.Value:0.#} steps", spec.Tolerance.Value - steps, steps <= spec.Tolerance.Value, ellipse.Source));
+                    criteria.Add(new CriterionResult(_toleranceCriterion, steps, _toleranceLimit, spec.Tolerance.Value - steps, steps <= spec.Tolerance.Value, ellipse.Source));
                     break;
                 case ToleranceKind.UPrimeVPrimeRadius:
-                    criteria.Add(new CriterionResult($"chromaticity: Δu'v' circle r = {spec.Tolerance.Value:0.####}", duv, $"<= {spec.Tolerance.Value:0.####}", spec.Tolerance.Value - duv, duv <= spec.Tolerance.Value, "CIE TN 001:2014 circle"));
+                    criteria.Add(new CriterionResult(_toleranceCriterion, duv, _toleranceLimit, spec.Tolerance.Value - duv, duv <= spec.Tolerance.Value, "CIE TN 001:2014 circle"));
                     break;
             }
         }
