@@ -82,13 +82,19 @@ public static class BatchScale
 
     private const string ShippedFull = "precompiled build (`dotnet publish -r RID`, ReadyToRun), full example spec, all cores";
     private const string ShippedChroma = "precompiled build, chromaticity-only spec, all cores";
+    private const string NativeFull = "native build (`dotnet publish -r RID -p:PublishAot=true`, NativeAOT, x86-64-v3), full example spec, all cores";
+    private const string NativeFull1 = "native build, full example spec, one core";
+    private const string NativeChroma = "native build, chromaticity-only spec, all cores";
+    private const string NativeChroma1 = "native build, chromaticity-only spec, one core";
 
-    /// <summary>Publishes the command-line tool for this machine's platform (ReadyToRun, as the README's single-file build
-    /// is) into <paramref name="folder"/>; returns the executable, or null when publishing fails.</summary>
-    private static string? PublishPrecompiled(string folder)
+    /// <summary>Publishes the command-line tool for this machine's platform into <paramref name="folder"/>: ReadyToRun (as
+    /// the README's single-file build is), or with <paramref name="native"/> the NativeAOT build at its default instruction
+    /// set; returns the executable, or null when publishing fails.</summary>
+    private static string? PublishPrecompiled(string folder, bool native)
     {
         var project = Path.Combine(BenchPaths.Root, "src", "Lumen.Cli", "Lumen.Cli.csproj");
-        var psi = new ProcessStartInfo("dotnet", ["publish", project, "-c", "Release", "-r", RuntimeInformation.RuntimeIdentifier, "--self-contained", "false", "-o", folder, "-nologo", "-v", "quiet"])
+        string[] kind = native ? ["-p:PublishAot=true"] : ["--self-contained", "false"];
+        var psi = new ProcessStartInfo("dotnet", ["publish", project, "-c", "Release", "-r", RuntimeInformation.RuntimeIdentifier, .. kind, "-o", folder, "-nologo", "-v", "quiet"])
         { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
         var clock = Stopwatch.StartNew();
         using var p = Process.Start(psi)!;
@@ -96,7 +102,7 @@ public static class BatchScale
         string err = p.StandardError.ReadToEnd();
         p.WaitForExit();
         var lumen = Path.Combine(folder, OperatingSystem.IsWindows() ? "lumen.exe" : "lumen");
-        Console.WriteLine($"publish (ReadyToRun, {RuntimeInformation.RuntimeIdentifier}): exit {p.ExitCode}, {clock.Elapsed.TotalSeconds:0} s");
+        Console.WriteLine($"publish ({(native ? "NativeAOT" : "ReadyToRun")}, {RuntimeInformation.RuntimeIdentifier}): exit {p.ExitCode}, {clock.Elapsed.TotalSeconds:0} s");
         if (p.ExitCode == 0 && File.Exists(lumen)) return lumen;
         Console.WriteLine(stdout.Result + err);
         return null;
@@ -165,13 +171,15 @@ public static class BatchScale
             var line = text.Split('\n').Last(l => l.StartsWith("RESULT", StringComparison.Ordinal)).Split(' ');
             return (double.Parse(line[1], CultureInfo.InvariantCulture), long.Parse(line[2], CultureInfo.InvariantCulture));
         }
-        // The same batches run by the precompiled (ReadyToRun) build that `dotnet publish -r RID` makes, as its own
-        // process: what users of the single-file binary get, without the start-up compilation every `dotnet run` build pays.
+        // The same batches run by the published builds, each as its own process: the precompiled (ReadyToRun) build that
+        // `dotnet publish -r RID` makes (what users of the single-file binary get, without the start-up compilation every
+        // `dotnet run` build pays), and the native (NativeAOT) build, which has no JIT at all. A "1" mode is pinned.
         (double Seconds, long Peak) Shipped(string lumen, string mode)
         {
             string[] args = BatchArguments(mode, file, spec, output);
             bool timed = File.Exists("/usr/bin/time");
             string[] command = timed ? ["/usr/bin/time", "-f", "PEAK %M", lumen, .. args] : [lumen, .. args];
+            if (mode.EndsWith('1') && Pinning) command = ["/usr/bin/taskset", "-c", "0", .. command];
             Warm(file);
             var psi = new ProcessStartInfo(command[0], command[1..]) { RedirectStandardError = true, RedirectStandardOutput = true, UseShellExecute = false };
             var clock = Stopwatch.StartNew();
@@ -185,7 +193,8 @@ public static class BatchScale
             return (clock.Elapsed.TotalSeconds, peak);
         }
         if (!File.Exists(file + ".plain.csv")) File.WriteAllLines(file + ".plain.csv", File.ReadLines(file).Where(l => !l.StartsWith('#')));
-        var lumen = PublishPrecompiled(Path.Combine(dir, "lumen-r2r"));
+        var lumen = PublishPrecompiled(Path.Combine(dir, "lumen-r2r"), native: false);
+        var nativeLumen = PublishPrecompiled(Path.Combine(dir, "lumen-native"), native: true);
         // Every mode runs once per round and the rounds repeat, so a slow spell of this shared machine falls on every mode
         // alike; each figure is the median of its rounds, and the range shows the spread.
         const string SepLabel = "sep", ParseLabel = "parse";
@@ -200,6 +209,13 @@ public static class BatchScale
             {
                 Record(ShippedFull, Shipped(lumen, "full"));
                 Record(ShippedChroma, Shipped(lumen, "chroma"));
+            }
+            if (nativeLumen is not null)
+            {
+                Record(NativeFull, Shipped(nativeLumen, "full"));
+                Record(NativeFull1, Shipped(nativeLumen, "full1"));
+                Record(NativeChroma, Shipped(nativeLumen, "chroma"));
+                Record(NativeChroma1, Shipped(nativeLumen, "chroma1"));
             }
             Console.WriteLine($"round {round} of {repeat}: " + string.Join(", ", runs.Select(r => string.Create(CultureInfo.InvariantCulture, $"{r.Key[..Math.Min(12, r.Key.Length)]} {r.Value[^1].Seconds:0.00} s"))));
         }
@@ -235,8 +251,14 @@ public static class BatchScale
             lines.Add(string.Create(CultureInfo.InvariantCulture, $"The precompiled build against Sep: full spec {Of(ShippedFull) / sep.Seconds:0.00}×, chromaticity-only {Of(ShippedChroma) / sep.Seconds:0.00}× (its own process, timed from its start to its exit; peak from /usr/bin/time)."));
         else
             lines.Add("The precompiled build could not be published here (`dotnet publish -r RID` failed), so its rows are missing.");
+        if (results.Any(r => r.Label == NativeFull))
+            lines.Add(string.Create(CultureInfo.InvariantCulture, $"The native build against Sep: full spec {Of(NativeFull) / sep.Seconds:0.00}×, chromaticity-only {Of(NativeChroma) / sep.Seconds:0.00}× (its own process, as the precompiled build)."));
+        else
+            lines.Add("The native build could not be published here (`dotnet publish -r RID -p:PublishAot=true` failed: it needs a C toolchain), so its rows are missing.");
         lines.Add("");
-        lines.Add(string.Create(CultureInfo.InvariantCulture, $"Scaling, {Environment.ProcessorCount} cores against one ({(Pinning ? "pinned with taskset -c 0" : "--threads 1; the reader and writer threads still run beside it")}), same run: full spec {Of(Modes[1].Label) / Of(Modes[0].Label):0.00}×, chromaticity-only {Of(Modes[3].Label) / Of(Modes[2].Label):0.00}×."));
+        string nativeScaling = results.Any(r => r.Label == NativeFull)
+            ? string.Create(CultureInfo.InvariantCulture, $"; native build {Of(NativeFull1) / Of(NativeFull):0.00}× and {Of(NativeChroma1) / Of(NativeChroma):0.00}×.") : ".";
+        lines.Add(string.Create(CultureInfo.InvariantCulture, $"Scaling, {Environment.ProcessorCount} cores against one ({(Pinning ? "pinned with taskset -c 0" : "--threads 1; the reader and writer threads still run beside it")}), same run: full spec {Of(Modes[1].Label) / Of(Modes[0].Label):0.00}×, chromaticity-only {Of(Modes[3].Label) / Of(Modes[2].Label):0.00}×") + nativeScaling);
         lines.Add("");
         lines.Add("Targets (issue 16): full spec ≤ 1.5× Sep's time, chromaticity-only ≤ 0.5× Sep's time, --threads 2 ≥ 1.7× --threads 1.");
         string name = rows == 20000 && stepNm == 5 ? "batch.md" : rows == 20000 ? $"batch-{stepNm}nm.md" : $"batch-{rows / 1000}k-{stepNm}nm.md";
