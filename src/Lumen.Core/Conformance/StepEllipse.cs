@@ -11,13 +11,21 @@ namespace Lumen.Conformance;
 public sealed record StepEllipse(Chromaticity Centre, double A, double B, double ThetaDegrees, string Source)
 {
     /// <summary>Metric coefficient g11 = cos²θ/a² + sin²θ/b².</summary>
-    public double G11 { get { double t = ThetaDegrees * Math.PI / 180; return Math.Cos(t) * Math.Cos(t) / (A * A) + Math.Sin(t) * Math.Sin(t) / (B * B); } }
+    public double G11 => Metric().G11;
 
     /// <summary>Metric coefficient g12 = sinθ·cosθ·(1/a² − 1/b²).</summary>
-    public double G12 { get { double t = ThetaDegrees * Math.PI / 180; return Math.Sin(t) * Math.Cos(t) * (1 / (A * A) - 1 / (B * B)); } }
+    public double G12 => Metric().G12;
 
     /// <summary>Metric coefficient g22 = sin²θ/a² + cos²θ/b².</summary>
-    public double G22 { get { double t = ThetaDegrees * Math.PI / 180; return Math.Sin(t) * Math.Sin(t) / (A * A) + Math.Cos(t) * Math.Cos(t) / (B * B); } }
+    public double G22 => Metric().G22;
+
+    /// <summary>The three metric coefficients from one cosine and one sine of θ (issue 16: each coefficient took its own,
+    /// ten trigonometric calls per distance; the same values, so the same results to the bit).</summary>
+    private (double G11, double G12, double G22) Metric()
+    {
+        double t = ThetaDegrees * Math.PI / 180, cos = Math.Cos(t), sin = Math.Sin(t);
+        return (cos * cos / (A * A) + sin * sin / (B * B), sin * cos * (1 / (A * A) - 1 / (B * B)), sin * sin / (A * A) + cos * cos / (B * B));
+    }
 
     /// <summary>Distance in steps (SDCM) of a point from the centre: √(g11Δx² + 2g12ΔxΔy + g22Δy²).</summary>
     /// <param name="x">CIE 1931 x of the point, 0–1.</param>
@@ -26,7 +34,8 @@ public sealed record StepEllipse(Chromaticity Centre, double A, double B, double
     public double Steps(double x, double y)
     {
         double dx = x - Centre.SmallX, dy = y - Centre.SmallY;
-        return Math.Sqrt(G11 * dx * dx + 2 * G12 * dx * dy + G22 * dy * dy);
+        var (g11, g12, g22) = Metric();
+        return Math.Sqrt(g11 * dx * dx + 2 * g12 * dx * dy + g22 * dy * dy);
     }
 
     /// <summary>The same shape about another centre.</summary>
