@@ -28,6 +28,11 @@ public static class ExitCodes
     /// measurement uncertainty (inconclusive); every record was read and written.</summary>
     public const int Inconclusive = 7;
 
+    /// <summary>Lumen's installation is incomplete: a native library it needs could not be loaded (the image library
+    /// beside a native build, for plots and reports). Nothing was written; reinstalling, or putting the library back
+    /// beside <c>lumen</c>, mends it.</summary>
+    public const int Installation = 8;
+
     /// <summary>One line per code, for <c>--help</c> and messages.</summary>
-    public const string Legend = "Exit codes: 0 success; 1 some results fail the specification; 2 usage error; 3 some input records unreadable (error rows written); 4 an output could not be written; 5 internal error; 6 interrupted (partial results in FILE.partial); 7 none fails but some are inconclusive under guarded acceptance.";
+    public const string Legend = "Exit codes: 0 success; 1 some results fail the specification; 2 usage error; 3 some input records unreadable (error rows written); 4 an output could not be written; 5 internal error; 6 interrupted (partial results in FILE.partial); 7 none fails but some are inconclusive under guarded acceptance; 8 incomplete installation (a native library missing).";
 }

@@ -51,6 +51,16 @@ public static class LumenApp
         {
             return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
         }
+        catch (Exception ex) when (MissingNativeLibrary(ex) is { } missing)
+        {
+            // Not a bug in Lumen: a native library (the image library of plots and reports) is not where the build put it.
+            // The loader's message runs to several lines (every path it tried): its first sentence here, all of it when asked for.
+            string what = missing.Message.Split('\n')[0].Trim();
+            if (what.IndexOf(". ", StringComparison.Ordinal) is > 0 and var end) what = what[..end];
+            stderr.WriteLine($"lumen: a native library could not be loaded ({what}); the installation is incomplete: keep the files published with lumen together (for images, {NativeImageLibrary} beside it), or reinstall. Nothing was written.");
+            if (Environment.GetEnvironmentVariable("LUMEN_DEBUG") is "1" or "true") stderr.WriteLine(missing.Message);
+            return ExitCodes.Installation;
+        }
         catch (Exception ex) when (ex is not OutOfMemoryException)
         {
             // A bug in Lumen: one line for the user, the trace only when asked for.
@@ -58,5 +68,20 @@ public static class LumenApp
             if (Environment.GetEnvironmentVariable("LUMEN_DEBUG") is "1" or "true") stderr.WriteLine(ex.ToString());
             return ExitCodes.InternalError;
         }
+    }
+
+    /// <summary>The image library's file name on this platform (SkiaSharp's native part).</summary>
+    internal static string NativeImageLibrary =>
+        OperatingSystem.IsWindows() ? "libSkiaSharp.dll" : OperatingSystem.IsMacOS() ? "libSkiaSharp.dylib" : "libSkiaSharp.so";
+
+    /// <summary>The failure to load a native library behind <paramref name="ex"/> (it may be wrapped, e.g. in the type
+    /// initializer that first called into the library), or null when the exception has another cause.</summary>
+    /// <param name="ex">What a command threw.</param>
+    /// <returns>The load failure, or null.</returns>
+    internal static DllNotFoundException? MissingNativeLibrary(Exception ex)
+    {
+        for (Exception? e = ex; e is not null; e = e.InnerException)
+            if (e is DllNotFoundException missing) return missing;
+        return null;
     }
 }

@@ -76,6 +76,19 @@ public sealed class PackageTests : IDisposable
             ["plot", "locus", lot, "-o", "{out}.png"],
             ["analyze", Path.Combine(_dir, "missing.csv")],
         ];
+        // The native binary alone, without the image library published beside it: analyses still run, and a plot stops
+        // with the installation's exit code and a message naming the library, not an internal error.
+        string alone = Path.Combine(_dir, "alone");
+        Directory.CreateDirectory(alone);
+        File.Copy(lumen, Path.Combine(alone, "lumen"));
+        var analyzed = RunArgs(Path.Combine(alone, "lumen"), ["analyze", Example("foyer-panel-4000K.tsv"), "--format", "csv"]);
+        Assert.True(analyzed.Code == ExitCodes.Success, analyzed.Err);
+        var plotted = RunArgs(Path.Combine(alone, "lumen"), ["plot", "locus", Example("foyer-panel-4000K.tsv"), "-o", Path.Combine(alone, "locus.png")]);
+        Assert.True(plotted.Code == ExitCodes.Installation, $"exit {plotted.Code}: {plotted.Err}");
+        Assert.Contains(LumenApp.NativeImageLibrary, plotted.Err, StringComparison.Ordinal);
+        Assert.DoesNotContain("internal error", plotted.Err, StringComparison.Ordinal);
+        Assert.Single(plotted.Err.Split('\n', StringSplitOptions.RemoveEmptyEntries)); // one line, not the loader's list of paths
+        Assert.False(File.Exists(Path.Combine(alone, "locus.png")));
         for (int i = 0; i < commands.Length; i++)
         {
             // Each build writes its own files; the names differ only in the folder, which no output mentions.

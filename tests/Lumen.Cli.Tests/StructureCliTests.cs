@@ -168,4 +168,18 @@ public class StructureCliTests
         }
         finally { Directory.Delete(dir, true); }
     }
+
+    [Fact]
+    public void A_missing_native_library_is_an_installation_problem_not_an_internal_error()
+    {
+        // How a missing libSkiaSharp shows up: the first call into it fails in a type initializer, wrapping the load
+        // failure. Found through the wrapping; anything else stays an internal error. (The native-build test in
+        // PackageTests runs the real case: the binary alone in a folder.)
+        var load = new DllNotFoundException("Unable to load shared library 'libSkiaSharp' or one of its dependencies.");
+        Assert.Same(load, LumenApp.MissingNativeLibrary(new TypeInitializationException("SkiaSharp.SKImageInfo", load)));
+        Assert.Same(load, LumenApp.MissingNativeLibrary(load));
+        Assert.Null(LumenApp.MissingNativeLibrary(new TypeInitializationException("X", new InvalidOperationException("a bug"))));
+        Assert.Null(LumenApp.MissingNativeLibrary(new IOException("disk")));
+        Assert.Contains("8 incomplete installation", ExitCodes.Legend, StringComparison.Ordinal);
+    }
 }
