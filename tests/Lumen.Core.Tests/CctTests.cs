@@ -141,6 +141,37 @@ public class CctTests
         Assert.True(worst < 1e-12, $"worst {worst}");
     }
 
+    [Fact]
+    public void The_locus_table_built_as_used_on_many_threads_equals_one_built_in_order()
+    {
+        // Issue 16: nodes and intervals are computed on first use. Four threads asking in a random order (points,
+        // nodes, both ends of the range) must see, bit for bit, what a table filled node by node in order holds.
+        var inOrder = new PlanckianLocus(C2Convention.Cie15Its90);
+        int nodes = PlanckianLocus.Nodes;
+        var u = new double[nodes];
+        var v = new double[nodes];
+        for (int k = 0; k < nodes; k++) { u[k] = inOrder.NodeU(k); v[k] = inOrder.NodeV(k); }
+        var mireds = Enumerable.Range(0, 4 * nodes).Select(i => PlanckianLocus.MinMired + i * (PlanckianLocus.MaxMired - PlanckianLocus.MinMired) / (4 * nodes - 1)).ToArray();
+        var expected = mireds.Select(inOrder.AtMired).ToArray();
+
+        var lazy = new PlanckianLocus(C2Convention.Cie15Its90);
+        var gotPoints = new LocusPoint[mireds.Length];
+        var gotU = new double[nodes];
+        var gotV = new double[nodes];
+        Parallel.For(0, 4, new ParallelOptions { MaxDegreeOfParallelism = 4 }, thread =>
+        {
+            var rng = new Random(100 + thread);
+            foreach (int i in Enumerable.Range(0, mireds.Length).OrderBy(_ => rng.Next()))
+                if (i % 4 == thread) gotPoints[i] = lazy.AtMired(mireds[i]);
+            foreach (int k in Enumerable.Range(0, nodes).OrderBy(_ => rng.Next()))
+                if (k % 4 == thread) { gotU[k] = lazy.NodeU(k); gotV[k] = lazy.NodeV(k); }
+        });
+        Assert.Equal(u, gotU);
+        Assert.Equal(v, gotV);
+        Assert.Equal(expected, gotPoints);
+        Assert.Equal(expected, mireds.Select(PlanckianLocus.Cie15.AtMired).ToArray()); // the shared locus too
+    }
+
     [Theory]
     // Source: colour-science Ohno 2013 planckian_table test (ids planckian_locus.ohno_table.5000K/6000K.u/.v;
     // CIE 1931 2°, 360–830 nm at 1 nm, c2 1.4388e-2), printed to 9 decimals. (The library's

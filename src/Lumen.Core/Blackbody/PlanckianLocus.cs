@@ -32,10 +32,18 @@ internal sealed class PlanckianLocus
     private readonly double[] _wavelengthFactor; // c2·1e-6/λ  (x = factor·m)
     private readonly double[] _lambdaPow5Inv;
     private readonly double[] _xBar, _yBar, _zBar;
-    private readonly double[] _nodeU, _nodeV;
+    // The table is built as it is used (issue 16): a node when a scan or an interval first needs it, an interval's quintic
+    // coefficients when a point in it is first asked for. Building all 2,000 nodes up front was half of a native batch's
+    // start-up (about 15 ms, 940,000 exponentials), and a batch of 3000 K lamps touches a few dozen of them. Every entry is
+    // the same pure function of its index, so the values are those of the whole table built in order, on any thread; an
+    // entry is published by a volatile flag written after it (two threads may both compute one: the same bits).
+    private readonly LocusPoint[] _points;
+    private readonly int[] _pointKnown;
     private readonly double[] _coefU, _coefV; // 6 per interval
+    private readonly int[] _coefKnown;
 
-    private PlanckianLocus(C2Convention convention)
+    /// <summary>A locus for a convention; <see cref="For"/> shares one per convention (tests make their own).</summary>
+    internal PlanckianLocus(C2Convention convention)
     {
         Convention = convention;
         C2 = PlanckConstants.For(convention).C2;
@@ -53,22 +61,32 @@ internal sealed class PlanckianLocus
             _lambdaPow5Inv[i] = 1.0 / Math.Pow(lambdaM * 1e6, 5); // scaled (λ in µm) to keep magnitudes tame
         }
 
-        var pts = new LocusPoint[NodeCount];
-        _nodeU = new double[NodeCount];
-        _nodeV = new double[NodeCount];
-        for (int k = 0; k < NodeCount; k++)
-        {
-            pts[k] = EvaluateExactAtMired(MinMired + k * Step);
-            _nodeU[k] = pts[k].U;
-            _nodeV[k] = pts[k].V;
-        }
+        _points = new LocusPoint[NodeCount];
+        _pointKnown = new int[NodeCount];
         _coefU = new double[(NodeCount - 1) * 6];
         _coefV = new double[(NodeCount - 1) * 6];
-        for (int k = 0; k < NodeCount - 1; k++)
+        _coefKnown = new int[NodeCount - 1];
+    }
+
+    /// <summary>The exact point at node <paramref name="k"/>, computed on first use.</summary>
+    private LocusPoint Node(int k)
+    {
+        if (Volatile.Read(ref _pointKnown[k]) == 0)
         {
-            Quintic(pts[k].U, pts[k].DuDm, pts[k].D2uDm2, pts[k + 1].U, pts[k + 1].DuDm, pts[k + 1].D2uDm2, _coefU.AsSpan(k * 6, 6));
-            Quintic(pts[k].V, pts[k].DvDm, pts[k].D2vDm2, pts[k + 1].V, pts[k + 1].DvDm, pts[k + 1].D2vDm2, _coefV.AsSpan(k * 6, 6));
+            _points[k] = EvaluateExactAtMired(MinMired + k * Step);
+            Volatile.Write(ref _pointKnown[k], 1);
         }
+        return _points[k];
+    }
+
+    /// <summary>Makes sure interval <paramref name="k"/> (nodes k and k + 1) has its quintic coefficients.</summary>
+    private void EnsureInterval(int k)
+    {
+        if (Volatile.Read(ref _coefKnown[k]) != 0) return;
+        LocusPoint a = Node(k), b = Node(k + 1);
+        Quintic(a.U, a.DuDm, a.D2uDm2, b.U, b.DuDm, b.D2uDm2, _coefU.AsSpan(k * 6, 6));
+        Quintic(a.V, a.DvDm, a.D2vDm2, b.V, b.DvDm, b.D2vDm2, _coefV.AsSpan(k * 6, 6));
+        Volatile.Write(ref _coefKnown[k], 1);
     }
 
     /// <summary>The locus with c2 = 1.4388e-2 m·K (CIE 15; Lumen's default).</summary>
@@ -145,6 +163,7 @@ internal sealed class PlanckianLocus
         double m = Math.Clamp(mired, MinMired, MaxMired);
         int k = Math.Min((int)((m - MinMired) / Step), NodeCount - 2);
         double t = (m - MinMired) / Step - k;
+        EnsureInterval(k);
         var cu = _coefU.AsSpan(k * 6, 6);
         var cv = _coefV.AsSpan(k * 6, 6);
         return new LocusPoint(
@@ -165,9 +184,9 @@ internal sealed class PlanckianLocus
     /// <summary>Number of table nodes (one per whole mired).</summary>
     internal static int Nodes => NodeCount;
 
-    internal double NodeU(int k) => _nodeU[k];
+    internal double NodeU(int k) => Node(k).U;
 
-    internal double NodeV(int k) => _nodeV[k];
+    internal double NodeV(int k) => Node(k).V;
 
     internal static double NodeMired(int k) => MinMired + k * Step;
 }
