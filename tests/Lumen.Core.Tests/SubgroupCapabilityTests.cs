@@ -101,4 +101,38 @@ public class SubgroupCapabilityTests
         Assert.True(double.IsNaN(b.RobustZ(5)));
         Assert.True(b.RobustZ(19) < BatchSummaryBuilder.OutlierZ);
     }
+
+    [Fact]
+    public void Robust_z_is_found_by_ordinal_whether_errors_come_before_or_not()
+    {
+        // The same 40 points, once alone (every record at its own ordinal: the direct look-up) and once after an error and
+        // with errors between (every look-up a search): each point keeps its robust z; errors and ordinals beyond the batch have none.
+        var spec = new PreparedSpec(new ToleranceSpec("s", null, new ChromaticityTolerance(ToleranceKind.None, 0), []));
+        var rng = new Random(9);
+        var points = Enumerable.Range(0, 40).Select(_ => Chromaticity.FromUPrimeVPrime(0.25 + 0.001 * (rng.NextDouble() - 0.5), 0.52 + 0.001 * (rng.NextDouble() - 0.5))).ToArray();
+        var alone = new BatchSummaryBuilder(spec);
+        var mixed = new BatchSummaryBuilder(spec);
+        var ordinal = new long[points.Length];
+        long next = 0;
+        mixed.AddError(); next++;
+        for (int i = 0; i < points.Length; i++)
+        {
+            alone.AddResult($"U{i}", points[i], true, _ => null, null);
+            if (i % 7 == 3) { mixed.AddError(); next++; }
+            ordinal[i] = next++;
+            mixed.AddResult($"U{i}", points[i], true, _ => null, null);
+        }
+        alone.Build();
+        mixed.Build();
+        for (int i = 0; i < points.Length; i++)
+        {
+            Assert.False(double.IsNaN(alone.RobustZ(i)));
+            Assert.Equal(alone.RobustZ(i), mixed.RobustZ(ordinal[i]));
+        }
+        Assert.True(double.IsNaN(mixed.RobustZ(0)));
+        Assert.True(double.IsNaN(mixed.RobustZ(4)));
+        Assert.True(double.IsNaN(alone.RobustZ(-1)));
+        Assert.True(double.IsNaN(alone.RobustZ(points.Length)));
+        Assert.True(double.IsNaN(mixed.RobustZ(next + 3)));
+    }
 }
