@@ -112,7 +112,7 @@ internal sealed class PlanckianLocus
         return EvaluateExactAtMired(1e6 / temperatureKelvin);
     }
 
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // 2,000 calls build the locus at start-up: unoptimised, they cost every process tens of milliseconds
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveOptimization)] // called for every table node a batch touches (about a hundred times by the first record): unoptimised, they cost every process milliseconds
     private LocusPoint EvaluateExactAtMired(double m)
     {
         double x0 = 0, y0 = 0, z0 = 0, x1 = 0, y1 = 0, z1 = 0, x2 = 0, y2 = 0, z2 = 0;
