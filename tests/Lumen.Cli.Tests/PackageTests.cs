@@ -13,16 +13,17 @@ public sealed class PackageTests : IDisposable
 
     public void Dispose() => Directory.Delete(_dir, true);
 
-    private static (int Code, string Out) Run(string file, string args, string cwd)
+    /// <summary>Runs a process to its end (at most 5 minutes) and returns its exit code, standard output and error.</summary>
+    private static (int Code, string Out, string Err) Run(string file, IEnumerable<string> args, string? cwd = null)
     {
-        var psi = new ProcessStartInfo(file, args) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false, WorkingDirectory = cwd };
+        var psi = new ProcessStartInfo(file, args) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false, WorkingDirectory = cwd ?? "" };
         psi.Environment["DOTNET_NOLOGO"] = "1";
         psi.Environment["DOTNET_CLI_TELEMETRY_OPTOUT"] = "1";
         using var p = Process.Start(psi)!;
         var o = p.StandardOutput.ReadToEndAsync();
         var e = p.StandardError.ReadToEndAsync();
-        if (!p.WaitForExit(300_000)) { p.Kill(true); throw new TimeoutException($"{file} {args} did not finish in 5 minutes"); }
-        return (p.ExitCode, o.Result + e.Result);
+        if (!p.WaitForExit(300_000)) { p.Kill(true); throw new TimeoutException($"{file} {string.Join(' ', args)} did not finish in 5 minutes"); }
+        return (p.ExitCode, o.Result, e.Result);
     }
 
     [Fact]
@@ -31,15 +32,15 @@ public sealed class PackageTests : IDisposable
         // Issue 16: publishing for a runtime identifier (the single-file binary) turns ReadyToRun on; the platform-neutral
         // tool package cannot carry precompiled code for every platform, so it must stay off there.
         string project = Path.Combine(CliTests.RepoRoot, "src", "Lumen.Cli", "Lumen.Cli.csproj");
-        var forPlatform = Run("dotnet", $"msbuild \"{project}\" -getProperty:PublishReadyToRun -p:RuntimeIdentifier=linux-x64", CliTests.RepoRoot);
-        Assert.True(forPlatform.Code == 0, forPlatform.Out);
+        var forPlatform = Run("dotnet", ["msbuild", project, "-getProperty:PublishReadyToRun", "-p:RuntimeIdentifier=linux-x64"], CliTests.RepoRoot);
+        Assert.True(forPlatform.Code == 0, forPlatform.Out + forPlatform.Err);
         Assert.Equal("true", forPlatform.Out.Trim());
-        var neutral = Run("dotnet", $"msbuild \"{project}\" -getProperty:PublishReadyToRun", CliTests.RepoRoot);
-        Assert.True(neutral.Code == 0, neutral.Out);
+        var neutral = Run("dotnet", ["msbuild", project, "-getProperty:PublishReadyToRun"], CliTests.RepoRoot);
+        Assert.True(neutral.Code == 0, neutral.Out + neutral.Err);
         Assert.NotEqual("true", neutral.Out.Trim());
         // The native build (NativeAOT) replaces ReadyToRun, and on x64 targets x86-64-v3 unless told otherwise.
-        var native = Run("dotnet", $"msbuild \"{project}\" -getProperty:PublishReadyToRun -getProperty:IlcInstructionSet -p:RuntimeIdentifier=linux-x64 -p:PublishAot=true", CliTests.RepoRoot);
-        Assert.True(native.Code == 0, native.Out);
+        var native = Run("dotnet", ["msbuild", project, "-getProperty:PublishReadyToRun", "-getProperty:IlcInstructionSet", "-p:RuntimeIdentifier=linux-x64", "-p:PublishAot=true"], CliTests.RepoRoot);
+        Assert.True(native.Code == 0, native.Out + native.Err);
         Assert.Contains("\"IlcInstructionSet\": \"x86-64-v3\"", native.Out, StringComparison.Ordinal);
         Assert.Contains("\"PublishReadyToRun\": \"\"", native.Out, StringComparison.Ordinal);
     }
@@ -55,8 +56,8 @@ public sealed class PackageTests : IDisposable
     public void The_native_build_gives_the_managed_builds_output_byte_for_byte()
     {
         string output = Path.Combine(_dir, "native");
-        var publish = Run("dotnet", $"publish \"{Path.Combine(CliTests.RepoRoot, "src", "Lumen.Cli")}\" -c Release -r {RuntimeInformation.RuntimeIdentifier} -p:PublishAot=true -p:IlcInstructionSet=native -o \"{output}\"", CliTests.RepoRoot);
-        Assert.True(publish.Code == 0, publish.Out);
+        var publish = Run("dotnet", ["publish", Path.Combine(CliTests.RepoRoot, "src", "Lumen.Cli"), "-c", "Release", "-r", RuntimeInformation.RuntimeIdentifier, "-p:PublishAot=true", "-p:IlcInstructionSet=native", "-o", output], CliTests.RepoRoot);
+        Assert.True(publish.Code == 0, publish.Out + publish.Err);
         string lumen = Path.Combine(output, "lumen");
         string Example(params string[] parts) => Path.Combine([CliTests.RepoRoot, "examples", .. parts]);
         string lot = Example("batch", "quillfern-dl30-lot-A17.csv"), spec = Example("batch", "spec-dl30.json");
@@ -81,9 +82,9 @@ public sealed class PackageTests : IDisposable
         string alone = Path.Combine(_dir, "alone");
         Directory.CreateDirectory(alone);
         File.Copy(lumen, Path.Combine(alone, "lumen"));
-        var analyzed = RunArgs(Path.Combine(alone, "lumen"), ["analyze", Example("foyer-panel-4000K.tsv"), "--format", "csv"]);
+        var analyzed = Run(Path.Combine(alone, "lumen"), ["analyze", Example("foyer-panel-4000K.tsv"), "--format", "csv"]);
         Assert.True(analyzed.Code == ExitCodes.Success, analyzed.Err);
-        var plotted = RunArgs(Path.Combine(alone, "lumen"), ["plot", "locus", Example("foyer-panel-4000K.tsv"), "-o", Path.Combine(alone, "locus.png")]);
+        var plotted = Run(Path.Combine(alone, "lumen"), ["plot", "locus", Example("foyer-panel-4000K.tsv"), "-o", Path.Combine(alone, "locus.png")]);
         Assert.True(plotted.Code == ExitCodes.Installation, $"exit {plotted.Code}: {plotted.Err}");
         Assert.Contains(LumenApp.NativeImageLibrary, plotted.Err, StringComparison.Ordinal);
         Assert.DoesNotContain("internal error", plotted.Err, StringComparison.Ordinal);
@@ -98,7 +99,7 @@ public sealed class PackageTests : IDisposable
             string[] managedArgs = commands[i].Select(a => a.Replace("{out}", managedOut, StringComparison.Ordinal)).ToArray();
             string[] nativeArgs = commands[i].Select(a => a.Replace("{out}", nativeOut, StringComparison.Ordinal)).ToArray();
             var managed = CliTests.Run("", managedArgs);
-            var native = RunArgs(lumen, nativeArgs);
+            var native = Run(lumen, nativeArgs);
             string what = string.Join(' ', commands[i]);
             Assert.True(managed.Code == native.Code, $"{what}: exit {managed.Code} managed, {native.Code} native\n{native.Out}{native.Err}");
             Assert.Equal(what + "\n" + managed.Out.Replace(managedOut, "{out}", StringComparison.Ordinal), what + "\n" + native.Out.Replace(nativeOut, "{out}", StringComparison.Ordinal));
@@ -112,32 +113,22 @@ public sealed class PackageTests : IDisposable
         }
     }
 
-    private static (int Code, string Out, string Err) RunArgs(string file, string[] args)
-    {
-        var psi = new ProcessStartInfo(file, args) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
-        using var p = Process.Start(psi)!;
-        var o = p.StandardOutput.ReadToEndAsync();
-        var e = p.StandardError.ReadToEndAsync();
-        if (!p.WaitForExit(120_000)) { p.Kill(true); throw new TimeoutException($"{file} {string.Join(' ', args)} did not finish in 2 minutes"); }
-        return (p.ExitCode, o.Result, e.Result);
-    }
-
     [Fact]
     public void The_packed_tool_installs_and_runs_in_a_clean_folder()
     {
         string packages = Path.Combine(_dir, "packages"), tools = Path.Combine(_dir, "tools"), work = Path.Combine(_dir, "elsewhere");
         Directory.CreateDirectory(work);
         // --no-restore: the test build has restored the projects; the pack builds Release beside it.
-        var pack = Run("dotnet", $"pack \"{Path.Combine(CliTests.RepoRoot, "src", "Lumen.Cli")}\" -c Release --no-restore -o \"{packages}\"", CliTests.RepoRoot);
-        Assert.True(pack.Code == 0, pack.Out);
+        var pack = Run("dotnet", ["pack", Path.Combine(CliTests.RepoRoot, "src", "Lumen.Cli"), "-c", "Release", "--no-restore", "-o", packages], CliTests.RepoRoot);
+        Assert.True(pack.Code == 0, pack.Out + pack.Err);
         Assert.Single(Directory.GetFiles(packages, "Lumen.Cli.*.nupkg"));
-        var install = Run("dotnet", $"tool install Lumen.Cli --tool-path \"{tools}\" --add-source \"{packages}\" --version {LumenApp.Version}", work);
-        Assert.True(install.Code == 0, install.Out);
+        var install = Run("dotnet", ["tool", "install", "Lumen.Cli", "--tool-path", tools, "--add-source", packages, "--version", LumenApp.Version], work);
+        Assert.True(install.Code == 0, install.Out + install.Err);
         string lumen = Path.Combine(tools, OperatingSystem.IsWindows() ? "lumen.exe" : "lumen");
-        var version = Run(lumen, "--version", work);
+        var version = Run(lumen, ["--version"], work);
         Assert.Equal(0, version.Code);
         Assert.StartsWith(LumenApp.Version, version.Out.Trim(), StringComparison.Ordinal);
-        var analysis = Run(lumen, $"analyze \"{Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv")}\" --format csv", work);
+        var analysis = Run(lumen, ["analyze", Path.Combine(CliTests.RepoRoot, "examples", "quillfern-downlights-3000K.csv"), "--format", "csv"], work);
         Assert.Equal(0, analysis.Code);
         Assert.StartsWith("name,", analysis.Out, StringComparison.Ordinal);
         Assert.Equal(7, analysis.Out.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length); // header + 6 spectra
