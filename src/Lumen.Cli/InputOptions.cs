@@ -67,8 +67,33 @@ internal sealed class InputOptions
         }
         TableLayout? layout = parse.GetValue(Layout) switch { "rows" => TableLayout.Rows, "columns" => TableLayout.Columns, _ => null };
         var exclude = outputs.Where(o => o is not null && o != "-").Select(o => o!).ToArray();
+        // An output inside a scanned folder is left out of the scan (a rerun must not read its own earlier results), but
+        // if that file holds spectra it is an input the user meant to read: writing would destroy it.
+        foreach (var output in exclude)
+            if (File.Exists(output) && InsideAFolder(output, Given(parse)) is { } folder && HoldsSpectra(output))
+            {
+                stderr.WriteLine($"lumen: the output '{output}' is a spectrum file in the input folder '{folder}'; writing it would replace that data: choose another output file.");
+                return false;
+            }
         selection = new InputSelection(SpectrumFiles.Expand(Given(parse), exclude), unit, layout);
         return true;
+    }
+    /// <summary>The given folder (if any) that holds <paramref name="path"/>, at any depth.</summary>
+    private static string? InsideAFolder(string path, IEnumerable<string> given)
+    {
+        string full = Path.GetFullPath(path);
+        foreach (var g in given)
+            if (g != "-" && Directory.Exists(g) && full.StartsWith(Path.TrimEndingDirectorySeparator(Path.GetFullPath(g)) + Path.DirectorySeparatorChar, StringComparison.Ordinal))
+                return g;
+        return null;
+    }
+
+    /// <summary>Whether a file reads as spectra (one of its first records is a spectrum, not an error): a data file, not
+    /// Lumen's own results.</summary>
+    private static bool HoldsSpectra(string path)
+    {
+        try { return SpectrumFiles.Read(path).Take(16).Any(r => r is SpectrumRecord); }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException) { return false; }
     }
 }
 

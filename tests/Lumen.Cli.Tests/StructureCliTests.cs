@@ -182,4 +182,33 @@ public class StructureCliTests
         Assert.Null(LumenApp.MissingNativeLibrary(new IOException("disk")));
         Assert.Contains("8 incomplete installation", ExitCodes.Legend, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void An_output_that_is_a_spectrum_file_in_an_input_folder_is_refused_and_a_rerun_still_works()
+    {
+        // Found checking bad input: `batch FOLDER -o FOLDER/lot.csv` left lot.csv out of the scan (as a rerun's own
+        // output) and then replaced the measurements with results. Now refused; writing results into the folder and
+        // running again still reads only the lot.
+        string dir = Path.Combine(Path.GetTempPath(), $"lumen-outin-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(dir);
+        try
+        {
+            string lot = Path.Combine(dir, "lot.csv"), spec = Path.Combine(CliTests.RepoRoot, "examples", "batch", "spec-dl30.json");
+            File.Copy(Path.Combine(CliTests.RepoRoot, "examples", "batch", "quillfern-dl30-lot-A17.csv"), lot);
+            byte[] before = File.ReadAllBytes(lot);
+            var (code, _, err) = CliTests.Run("", "batch", dir, "--spec", spec, "-o", lot, "--summary", Path.Combine(dir, "s.txt"));
+            Assert.Equal(ExitCodes.UsageError, code);
+            Assert.Contains("is a spectrum file in the input folder", err, StringComparison.Ordinal);
+            Assert.Equal(before, File.ReadAllBytes(lot));
+            string results = Path.Combine(dir, "results.csv");
+            for (int run = 0; run < 2; run++)
+            {
+                (code, _, err) = CliTests.Run("", "batch", dir, "--spec", spec, "-o", results, "--summary", Path.Combine(dir, "s.txt"));
+                Assert.Equal(ExitCodes.InputErrors, code); // the lot's four unreadable rows (examples/README.md)
+                Assert.Equal(241, File.ReadAllLines(results).Length); // header + 240 records, the earlier results not read
+            }
+            Assert.Equal(before, File.ReadAllBytes(lot));
+        }
+        finally { Directory.Delete(dir, true); }
+    }
 }
