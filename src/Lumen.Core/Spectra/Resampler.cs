@@ -13,23 +13,30 @@ namespace Lumen.Spectra;
 /// </remarks>
 public static class Resampler
 {
+    /// <summary>The steps of the CIE tables (nm).</summary>
+    private static readonly int[] CieSteps = [1, 5];
+
+    /// <summary>The sampling method of a spectrum on the CIE 1 nm and 5 nm grids (worded once, not per spectrum).</summary>
+    private const string OwnOneNmStep = "summed at the spectrum's own 1 nm step (CIE 15)", OwnFiveNmStep = "summed at the spectrum's own 5 nm step (CIE 15)";
+
     /// <summary>Brings <paramref name="spectrum"/> onto the grid the CIE sums use (see remarks of the type).</summary>
     /// <param name="spectrum">The measured spectrum, on any ascending grid.</param>
-    /// <returns>The regular samples and the method used.</returns>
+    /// <returns>The regular samples and the method used. On the CIE grid itself they are the spectrum's own values, not a
+    /// copy (a spectrum never changes, and samples are read-only): a batch no longer copies every spectrum once more.</returns>
     public static RegularSamples ForCieSums(Spectrum spectrum)
     {
         ArgumentNullException.ThrowIfNull(spectrum);
         var step = spectrum.RegularStepNm;
         if (step is double s)
         {
-            foreach (int cieStep in new[] { 1, 5 })
+            foreach (int cieStep in CieSteps)
             {
                 double first = spectrum.FirstNm;
                 if (Math.Abs(s - cieStep) < 1e-6 && Math.Abs(first - Math.Round(first)) < 1e-6
                     && ((int)Math.Round(first)) % cieStep == 0)
                 {
-                    return new RegularSamples((int)Math.Round(first), cieStep, spectrum.Values.ToArray(),
-                        $"summed at the spectrum's own {cieStep} nm step (CIE 15)");
+                    return new RegularSamples((int)Math.Round(first), cieStep, spectrum.ValueArray,
+                        cieStep == 1 ? OwnOneNmStep : OwnFiveNmStep);
                 }
             }
             if (spectrum.Count >= 6)

@@ -78,7 +78,8 @@ public sealed class Spectrum
             throw new InvalidSpectrumException($"{origin}: {sameWavelengthsAs.Count} wavelengths but {values.Length} values.");
         NegativeSampleCount = CheckValues(sameWavelengthsAs._wavelengthsNm, values, origin);
         _wavelengthsNm = sameWavelengthsAs._wavelengthsNm; // immutable: never written after construction
-        _values = values.ToArray();
+        _values = GC.AllocateUninitializedArray<double>(values.Length); // every value is written next: no zeroing (issue 16)
+        values.CopyTo(_values);
         RegularStepNm = sameWavelengthsAs.RegularStepNm;
     }
 
@@ -156,6 +157,9 @@ public sealed class Spectrum
 
     /// <summary>Values, one per wavelength.</summary>
     public ReadOnlySpan<double> Values => _values;
+
+    /// <summary>The values' own array, for samples that share it (<see cref="Resampler.ForCieSums"/>); never written.</summary>
+    internal double[] ValueArray => _values;
 
     /// <summary>Number of samples.</summary>
     public int Count => _values.Length;
