@@ -151,7 +151,7 @@ public static class RowSpectrumReader
                 rows++;
                 int atLine = lineNo;
                 var rp = parser;
-                if (rowBytes is not null) yield return () => rp.Parse(rowBytes, atLine);
+                if (rowBytes is { } kept) yield return () => rp.Parse(kept, atLine);
                 else yield return () => rp.Parse(rowText!, atLine);
                 continue;
             }
@@ -221,18 +221,19 @@ public static class RowSpectrumReader
     /// bytes when its ends are ASCII other than white space (then trimming the ASCII white space around it is all the
     /// trimming there is), else as the trimmed string (a line padded with, say, a no-break space).
     /// </summary>
-    private static RowLine NextRowUtf8(LineReader reader, out string? text, out byte[]? bytes)
+    private static RowLine NextRowUtf8(LineReader reader, out string? text, out ReadOnlyMemory<byte>? bytes)
     {
         text = null;
         bytes = null;
-        if (!reader.TryReadLineUtf8(out var line)) return RowLine.End;
+        if (!reader.TryReadLineUtf8Stable(out var kept)) return RowLine.End;
+        var line = kept.Span;
         int start = 0, end = line.Length;
         while (start < end && line[start] < 0x80 && char.IsWhiteSpace((char)line[start])) start++;
         while (end > start && line[end - 1] < 0x80 && char.IsWhiteSpace((char)line[end - 1])) end--;
         if (start == end) return RowLine.Blank;
         if (line[start] < 0x80 && line[end - 1] < 0x80)
         {
-            bytes = line[start..end].ToArray();
+            bytes = kept[start..end]; // valid after later reads: parsed on a worker, not copied (issue 16)
             return RowLine.Row;
         }
         text = Encoding.UTF8.GetString(line).Trim();
@@ -283,10 +284,10 @@ public static class RowSpectrumReader
         /// plain decimals, an optional trailing delimiter) read from the bytes; any other row decoded and given to
         /// <see cref="Parse(string, int)"/>, so both give the same record and diagnostics have one source.
         /// </summary>
-        public InputRecord Parse(byte[] row, int ln)
+        public InputRecord Parse(ReadOnlyMemory<byte> row, int ln)
         {
             var rented = ArrayPool<double>.Shared.Rent(_wavelengths.Length); // the spectrum keeps its own copy
-            try { return TryParseFast(row, rented.AsSpan(0, _wavelengths.Length), ln) ?? Parse(Encoding.UTF8.GetString(row), ln); }
+            try { return TryParseFast(row.Span, rented.AsSpan(0, _wavelengths.Length), ln) ?? Parse(Encoding.UTF8.GetString(row.Span), ln); }
             finally { ArrayPool<double>.Shared.Return(rented); }
         }
 

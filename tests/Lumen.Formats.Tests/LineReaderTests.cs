@@ -95,6 +95,25 @@ public sealed class LineReaderTests
         Assert.Equal(encoding is "utf-8 mark" or "none", lines.IsUtf8);
     }
 
+    [Theory]
+    [InlineData(4)]
+    [InlineData(5)]
+    public void Kept_lines_stay_intact_while_the_rest_is_read(int seed)
+    {
+        // A batch hands rows to worker threads unparsed (issue 16): every line kept from the stable read must still hold
+        // its bytes after the whole input has gone through the reader's buffers (600 KB: ten refills and more).
+        var input = Text(seed, 600_000);
+        var expected = ByCharacters(input);
+        foreach (Stream stream in new Stream[] { new MemoryStream(input), new Trickle(input, seed) })
+        {
+            using var lines = LineReader.Open(stream);
+            var kept = new List<ReadOnlyMemory<byte>>();
+            while (lines.TryReadLineUtf8Stable(out var l)) kept.Add(l);
+            Assert.Equal(expected, kept.Select(k => Encoding.UTF8.GetString(k.Span)));
+            Assert.Equal(expected.Count, lines.LinesRead);
+        }
+    }
+
     [Fact]
     public void Peeked_lines_are_replayed_as_bytes()
     {
@@ -104,6 +123,11 @@ public sealed class LineReaderTests
         while (lines.TryReadLineUtf8(out var l)) seen.Add(Encoding.UTF8.GetString(l));
         Assert.Equal(["# note", "", "id,380", "A,1"], seen);
         Assert.Equal(4, lines.LinesRead);
+        using var again = LineReader.Open(new MemoryStream("# note\n\nid,380\nA,1\n"u8.ToArray()));
+        Assert.Equal("id,380", again.PeekFirstDataLine());
+        var kept = new List<ReadOnlyMemory<byte>>();
+        while (again.TryReadLineUtf8Stable(out var l)) kept.Add(l);
+        Assert.Equal(seen, kept.Select(k => Encoding.UTF8.GetString(k.Span)));
     }
 
     [Fact]
