@@ -45,17 +45,6 @@ public sealed class PackageTests : IDisposable
         Assert.Contains("\"PublishReadyToRun\": \"\"", native.Out, StringComparison.Ordinal);
     }
 
-    [Fact]
-    public void The_tool_keeps_the_young_generation_small()
-    {
-        // Issue 16: on a machine with a large shared cache the collector's own choice let a batch touch ~90 MB of fresh
-        // memory before its first collection (a page fault and two zeroings per 4 KB); the tool asks for 4 MB. The managed
-        // builds read it from lumen.runtimeconfig.json (checked here); the native build compiles the same setting in.
-        using var config = System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "lumen.runtimeconfig.json")));
-        var properties = config.RootElement.GetProperty("runtimeOptions").GetProperty("configProperties");
-        Assert.Equal(4 * 1024 * 1024, properties.GetProperty("System.GC.Gen0MaxBudget").GetInt64());
-    }
-
     /// <summary>
     /// Issue 16: the native build (<c>dotnet publish -r RID -p:PublishAot=true</c>) runs every verb with the same
     /// output, byte for byte, as the managed build: results, summaries, the Parquet file and an image. Built for this
