@@ -78,6 +78,7 @@ internal sealed class InputOptions
         selection = new InputSelection(SpectrumFiles.Expand(Given(parse), exclude), unit, layout);
         return true;
     }
+
     /// <summary>The given folder (if any) that holds <paramref name="path"/>, at any depth.</summary>
     private static string? InsideAFolder(string path, IEnumerable<string> given)
     {

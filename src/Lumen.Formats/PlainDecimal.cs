@@ -130,6 +130,6 @@ internal static class PlainDecimal
     }
 
     /// <summary>The code unit at <paramref name="i"/> as a number (an ASCII character has the same value in both).</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static uint At<TChar>(ReadOnlySpan<TChar> text, int i) where TChar : unmanaged, IBinaryInteger<TChar> => uint.CreateTruncating(text[i]);
 }
