@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using System.Text;
 
 namespace Lumen.Formats;
@@ -25,7 +26,9 @@ public sealed class LineReader : TextReader
     private readonly char[] _buffer;
     private readonly StringBuilder _line = new();
     private byte[] _bytes;
-    private bool _keepBuffers; // lines were handed out to keep (TryReadLineUtf8Stable): a refill reads into a new buffer
+    private bool _keepBuffers; // lines were handed out to keep (TryReadLineUtf8Stable): a refill reads into another buffer
+    private SharedReadBuffer? _shared; // the read buffer's lines handed out to keep, while it is the read buffer
+    private readonly ConcurrentBag<byte[]> _released = []; // read buffers whose kept lines have all been released
     private byte[] _lineBytes = [];
     private int _lineBytesLength;
     private int _pos, _len;
@@ -97,21 +100,36 @@ public sealed class LineReader : TextReader
     /// <summary>
     /// <see cref="TryReadLineUtf8"/>, but the line stays valid after later reads, so it can be handed to another thread
     /// unparsed: a line that lies in the read buffer is a slice of it, and from the first call on every refill reads into
-    /// a new buffer (allocated without zeroing) instead of overwriting the old one, which lives on as long as one of its
-    /// lines does; a line assembled across buffers, or replayed, is copied. Issue 16: copying each 3 KB row of a batch
-    /// into an array of its own cost the reader thread more than finding the rows.
+    /// another buffer instead of overwriting the old one; a line assembled across buffers, or replayed, is copied. Issue
+    /// 16: copying each 3 KB row of a batch into an array of its own cost the reader thread more than finding the rows.
     /// </summary>
+    /// <remarks>
+    /// A slice comes with its buffer's <paramref name="hold"/>: the buffer is read into again only after the reader has
+    /// moved past it and every hold taken on it has been released (<see cref="SharedReadBuffer.Release"/>, once per
+    /// line). A line never released keeps its bytes for good, and its buffer goes to the garbage collector with it; so
+    /// a caller that does not release is safe, and one that releases saves the allocation (and first touch) of a new
+    /// 64 KB buffer per refill.
+    /// </remarks>
     /// <param name="line">The line without its <c>\n</c> (nor a <c>\r</c> before it).</param>
+    /// <param name="hold">The hold on the buffer the line lies in, or null when the line is a copy of its own.</param>
     /// <returns>False at the end of the input.</returns>
-    internal bool TryReadLineUtf8Stable(out ReadOnlyMemory<byte> line)
+    internal bool TryReadLineUtf8Stable(out ReadOnlyMemory<byte> line, out SharedReadBuffer? hold)
     {
         _keepBuffers = true;
+        hold = null;
         if (!TryReadLineUtf8(out var span))
         {
             line = default;
             return false;
         }
-        line = _bytes.AsSpan().Overlaps(span, out int offset) ? _bytes.AsMemory(offset, span.Length) : span.ToArray();
+        if (!_bytes.AsSpan().Overlaps(span, out int offset))
+        {
+            line = span.ToArray();
+            return true;
+        }
+        line = _bytes.AsMemory(offset, span.Length);
+        hold = _shared ??= new SharedReadBuffer(_bytes, _released);
+        hold.Hold();
         return true;
     }
 
@@ -206,7 +224,7 @@ public sealed class LineReader : TextReader
                     line = _lineBytes.AsSpan(0, _lineBytesLength);
                     return _lineBytesLength > 0;
                 }
-                if (_keepBuffers) _bytes = GC.AllocateUninitializedArray<byte>(_bytes.Length); // the old one may hold kept lines
+                if (_keepBuffers) NextReadBuffer();
                 _len = _utf8!.Read(_bytes, 0, _bytes.Length);
                 _pos = 0;
                 if (_len == 0) { _eof = true; continue; }
@@ -236,6 +254,16 @@ public sealed class LineReader : TextReader
                 return true;
             }
         }
+    }
+
+    /// <summary>Moves on from the read buffer, which may hold kept lines: the next one is a released buffer, or a new one
+    /// (not zeroed; the read fills what is used).</summary>
+    private void NextReadBuffer()
+    {
+        if (_shared is null) _released.Add(_bytes); // no line of it was kept
+        else _shared.Release(); // the reader's own hold: back once every kept line of it is released
+        _shared = null;
+        _bytes = _released.TryTake(out var again) ? again : GC.AllocateUninitializedArray<byte>(_bytes.Length);
     }
 
     private void GrowLineBytes(int needed)
@@ -274,5 +302,35 @@ public sealed class LineReader : TextReader
             if (disposing) rest.Dispose();
             base.Dispose(disposing);
         }
+    }
+}
+
+/// <summary>
+/// A read buffer of a <see cref="LineReader"/> whose lines were handed out to keep
+/// (<see cref="LineReader.TryReadLineUtf8Stable"/>): it goes back to the reader, to be read into again, once the reader has
+/// moved past it and every line taken from it has been released. Thread-safe: lines are released on any thread.
+/// </summary>
+internal sealed class SharedReadBuffer
+{
+    private readonly byte[] _bytes;
+    private readonly ConcurrentBag<byte[]> _released;
+    private int _holds = 1; // the reader's own, while it reads from this buffer
+
+    internal SharedReadBuffer(byte[] bytes, ConcurrentBag<byte[]> released)
+    {
+        _bytes = bytes;
+        _released = released;
+    }
+
+    /// <summary>One more line of it kept (called by the reader, before it moves on).</summary>
+    internal void Hold() => Interlocked.Increment(ref _holds);
+
+    /// <summary>A kept line of it is no longer used: call once per line, and not before its bytes are no longer read.</summary>
+    /// <exception cref="InvalidOperationException">More releases than holds (a line released twice).</exception>
+    public void Release()
+    {
+        int left = Interlocked.Decrement(ref _holds);
+        if (left == 0) _released.Add(_bytes);
+        else if (left < 0) throw new InvalidOperationException("a read buffer was released more often than its lines were kept");
     }
 }

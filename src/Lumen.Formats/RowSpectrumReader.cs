@@ -118,7 +118,9 @@ public static class RowSpectrumReader
     /// <summary>
     /// Streams the rows of a row-layout text unparsed: each item parses its row when called (thread-safe, no shared
     /// state), so a batch can read lines on one thread and parse them on all cores. Calling every item in order gives
-    /// exactly <see cref="Read"/>'s records.
+    /// exactly <see cref="Read"/>'s records. Call each item once: the rows of a UTF-8 <see cref="LineReader"/> wait as
+    /// bytes in its read buffers, which are read into again once their rows are parsed, and a second call throws
+    /// <see cref="InvalidOperationException"/>.
     /// </summary>
     /// <param name="reader">The text.</param>
     /// <param name="source">Source label.</param>
@@ -144,14 +146,14 @@ public static class RowSpectrumReader
             if (parser is not null && utf8 is not null && parser.TakesUtf8)
             {
                 // After the header, the rows of a UTF-8 input stay bytes until a worker parses them (issue 16).
-                var kind = NextRowUtf8(utf8, out var rowText, out var rowBytes);
+                var kind = NextRowUtf8(utf8, out var rowText, out var rowBytes, out var hold);
                 if (kind == RowLine.End) break;
                 lineNo++;
                 if (kind == RowLine.Blank) continue;
                 rows++;
                 int atLine = lineNo;
                 var rp = parser;
-                if (rowBytes is { } kept) yield return () => rp.Parse(kept, atLine);
+                if (rowBytes is { } kept) yield return new DeferredRow(rp, kept, hold, atLine).Parse;
                 else yield return () => rp.Parse(rowText!, atLine);
                 continue;
             }
@@ -221,23 +223,41 @@ public static class RowSpectrumReader
     /// bytes when its ends are ASCII other than white space (then trimming the ASCII white space around it is all the
     /// trimming there is), else as the trimmed string (a line padded with, say, a no-break space).
     /// </summary>
-    private static RowLine NextRowUtf8(LineReader reader, out string? text, out ReadOnlyMemory<byte>? bytes)
+    private static RowLine NextRowUtf8(LineReader reader, out string? text, out ReadOnlyMemory<byte>? bytes, out SharedReadBuffer? hold)
     {
         text = null;
         bytes = null;
-        if (!reader.TryReadLineUtf8Stable(out var kept)) return RowLine.End;
+        if (!reader.TryReadLineUtf8Stable(out var kept, out hold)) return RowLine.End;
         var line = kept.Span;
         int start = 0, end = line.Length;
         while (start < end && line[start] < 0x80 && char.IsWhiteSpace((char)line[start])) start++;
         while (end > start && line[end - 1] < 0x80 && char.IsWhiteSpace((char)line[end - 1])) end--;
-        if (start == end) return RowLine.Blank;
-        if (line[start] < 0x80 && line[end - 1] < 0x80)
+        if (start < end && line[start] < 0x80 && line[end - 1] < 0x80)
         {
             bytes = kept[start..end]; // valid after later reads: parsed on a worker, not copied (issue 16)
             return RowLine.Row;
         }
-        text = Encoding.UTF8.GetString(line).Trim();
+        text = start == end ? "" : Encoding.UTF8.GetString(line).Trim(); // a copy: the buffer is not needed
+        hold?.Release();
+        hold = null;
         return text.Length == 0 ? RowLine.Blank : RowLine.Row;
+    }
+
+    /// <summary>
+    /// A row kept as UTF-8 bytes in the line reader's buffer until a worker parses it (<see cref="LineReader.TryReadLineUtf8Stable"/>):
+    /// parsing it releases its hold on the buffer, which the reader then reads into again, so a row is parsed once and
+    /// a second call throws instead of reading bytes that may belong to another row by then.
+    /// </summary>
+    private sealed class DeferredRow(RowParser parser, ReadOnlyMemory<byte> bytes, SharedReadBuffer? hold, int line)
+    {
+        private int _parsed;
+
+        public InputRecord Parse()
+        {
+            if (Interlocked.Exchange(ref _parsed, 1) != 0) throw new InvalidOperationException($"the row of line {line} was parsed already: each deferred row is parsed once");
+            try { return parser.Parse(bytes, line); }
+            finally { hold?.Release(); }
+        }
     }
 
     /// <summary>Parses data rows once the header is known: immutable, so rows may be parsed on any thread.</summary>

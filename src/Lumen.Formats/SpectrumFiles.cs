@@ -24,7 +24,9 @@ public static class SpectrumFiles
     /// <summary>
     /// As <see cref="Read"/>, but each record is parsed when its item is called: the file is read on the calling thread,
     /// and a row-layout row's numbers can be parsed on any thread (column-layout and TM-27 records come parsed). Calling
-    /// the items in order gives exactly <see cref="Read"/>'s records.
+    /// the items in order gives exactly <see cref="Read"/>'s records. Call each item once: a row-layout row waits as bytes
+    /// in a read buffer that is read into again once its rows are parsed, and a second call throws
+    /// <see cref="InvalidOperationException"/>.
     /// </summary>
     /// <param name="path">File path or <c>-</c>.</param>
     /// <param name="unit">Unit when the file declares none.</param>

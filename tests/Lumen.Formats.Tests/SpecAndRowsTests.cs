@@ -210,6 +210,24 @@ public class RowReaderTests
     }
 
     [Fact]
+    public void A_deferred_utf8_row_is_parsed_once()
+    {
+        // Its bytes wait in the reader's buffer, which is read into again once its rows are parsed (issue 16): a second
+        // parse would read another row's bytes, so it is refused. The first parse equals the streamed record.
+        var text = Header("id,") + "\n" + Row("U1,") + "\n" + Row("U2,", i => i == 3 ? "2" : "1") + "\n";
+        using var lines = LineReader.Open(new MemoryStream(Encoding.UTF8.GetBytes(text)));
+        var items = RowSpectrumReader.ReadDeferred(lines, "rows.csv", "rows").ToList();
+        var streamed = RowSpectrumReader.Read(new StringReader(text), "rows.csv", "rows").ToList();
+        Assert.Equal(2, items.Count);
+        var second = items[1]();
+        Assert.Equal(streamed[1].Spectrum!.Values.ToArray(), second.Spectrum!.Values.ToArray());
+        Assert.Equal("U2", second.Name);
+        var ex = Assert.Throws<InvalidOperationException>(() => items[1]());
+        Assert.Contains("line 3", ex.Message, StringComparison.Ordinal);
+        Assert.Equal("U1", items[0]().Name);
+    }
+
+    [Fact]
     public void Header_without_wavelengths_is_one_error()
     {
         var recs = RowSpectrumReader.Read(new StringReader("id,a,b\n1,2,3\n"), "x.csv", "x").ToList();
