@@ -270,6 +270,8 @@ public static class RowSpectrumReader
         private readonly double[] _wavelengths;
         private readonly string[] _metadataNames;
         private readonly IReadOnlyList<KeyValuePair<string, string>> _preamble;
+        private readonly KeyValuePair<string, string>[] _metadataTemplate; // the preamble and metadata keys, merged once
+        private readonly int[] _metadataSlots; // where each metadata column's entry lies in it
 
         private readonly bool _spans;
 
@@ -287,6 +289,11 @@ public static class RowSpectrumReader
             _wavelengths = new double[header.Length - idColumns];
             for (int i = 0; i < _wavelengths.Length; i++) DelimitedSpectrumReader.TryParseNumber(header[idColumns + i], d, out _wavelengths[i]);
             _preamble = preamble.Count == 0 ? [] : Preamble.Merge(preamble);
+            // Merging the same keys for every row gives the same layout: merged once here, filled per row (issue 16).
+            var keys = Preamble.Merge(_preamble.Concat(_metadataNames.Skip(1).Select(n => new KeyValuePair<string, string>(n, ""))));
+            _metadataTemplate = [.. keys];
+            _metadataSlots = new int[idColumns];
+            for (int i = 1; i < idColumns; i++) _metadataSlots[i] = Array.FindIndex(_metadataTemplate, kv => kv.Key == _metadataNames[i]);
             // The grid every row shares (checked once); an invalid grid leaves it null, and each row then reports it.
             try { _grid = new Spectrum(_wavelengths, new double[_wavelengths.Length], unit, "grid", new SpectrumOrigin(source, 0)); }
             catch (InvalidSpectrumException) { _grid = null; }
@@ -447,6 +454,12 @@ public static class RowSpectrumReader
         private IReadOnlyList<KeyValuePair<string, string>> Metadata(string[] cells)
         {
             if (_idColumns <= 1) return _preamble;
+            if (cells.Length >= _idColumns)
+            {
+                var row = (KeyValuePair<string, string>[])_metadataTemplate.Clone();
+                for (int i = 1; i < _idColumns; i++) row[_metadataSlots[i]] = new(_metadataNames[i], cells[i]);
+                return row;
+            }
             var entries = new List<KeyValuePair<string, string>>(_preamble);
             for (int i = 1; i < _idColumns && i < cells.Length; i++) entries.Add(new(_metadataNames[i], cells[i]));
             return Preamble.Merge(entries);

@@ -44,6 +44,28 @@ public class PreambleTests
     }
 
     [Fact]
+    public void Each_row_merges_its_metadata_as_the_merge_rule_does()
+    {
+        // The merged key layout is worked out once per file (issue 16); each row must still equal Merge applied to the
+        // preamble and its own cells: a repeated column name keeps the later cell, in the first one's place.
+        var wl = string.Join(',', Enumerable.Range(0, 81).Select(i => 380 + 5 * i));
+        var row = string.Join(',', Enumerable.Repeat("1", 81));
+        var text = $"# shift: preamble\n# station: EOL-2\nunit_id,shift,lot,shift,{wl}\nU1,early,A,late,{row}\nU2,e2,B,l2,{row}\n";
+        foreach (var utf8 in new[] { false, true })
+        {
+            using TextReader reader = utf8 ? LineReader.Open(new MemoryStream(System.Text.Encoding.UTF8.GetBytes(text))) : new StringReader(text);
+            var records = RowSpectrumReader.ReadDeferred(reader, "t.csv", "t").Select(p => p()).ToList();
+            foreach (var (r, cells) in records.Zip(new[] { new[] { "early", "A", "late" }, ["e2", "B", "l2"] }))
+            {
+                var expected = Preamble.Merge([new("shift", "preamble"), new("station", "EOL-2"), new("shift", cells[0]), new("lot", cells[1]), new("shift", cells[2])]);
+                Assert.Equal(expected, r.Metadata);
+            }
+            Assert.Equal(["shift", "station", "lot"], records[0].Metadata.Select(kv => kv.Key));
+            Assert.Equal("late", records[0].MetadataValue("shift"));
+        }
+    }
+
+    [Fact]
     public void Column_layout_records_carry_the_preamble()
     {
         var text = "# project: atrium\nnm,a,b\n" + string.Join('\n', Enumerable.Range(0, 81).Select(i => $"{380 + 5 * i},1,2")) + "\n";
