@@ -7,9 +7,9 @@ namespace Lumen.Cli;
 /// <summary>Option factories and small helpers that several verbs share.</summary>
 internal static class CommonOptions
 {
-    /// <summary>The --threads option: worker threads, default all cores.</summary>
+    /// <summary>The --threads option: worker threads, default all cores; 1 computes on the main thread alone.</summary>
     /// <returns>A new option.</returns>
-    public static Option<int> Threads() => new Option<int>("--threads") { Description = "Worker threads (default: all cores).", DefaultValueFactory = _ => Environment.ProcessorCount }.Strict("4");
+    public static Option<int> Threads() => new Option<int>("--threads") { Description = "Worker threads (default: all cores); 1 runs everything on one thread.", DefaultValueFactory = _ => Environment.ProcessorCount }.Strict("4");
 
     /// <summary>A <c>--format</c> option accepting <paramref name="formats"/> (the first is the default).</summary>
     public static Option<string> Format(params string[] formats)

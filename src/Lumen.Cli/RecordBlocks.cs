@@ -26,7 +26,10 @@ internal static class RecordBlocks
     /// <summary>Blocks read ahead per worker thread (work queued while the caller writes).</summary>
     public const int BlocksInFlightPerThread = 4;
 
-    /// <summary>Every record's outcome, in input order, computed on <paramref name="threads"/> worker threads.</summary>
+    /// <summary>
+    /// Every record's outcome, in input order, computed on <paramref name="threads"/> worker threads beside a reader
+    /// thread and the caller's; with one thread, everything runs on the caller's thread (<see cref="OnThisThread"/>).
+    /// </summary>
     /// <param name="deferred">Deferred records (each parses its row when called, on a worker).</param>
     /// <param name="options">What to compute.</param>
     /// <param name="spec">The specification, or null.</param>
@@ -37,7 +40,44 @@ internal static class RecordBlocks
     public static IEnumerable<RecordOutcome> Stream(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads, CancellationToken interrupt = default)
     {
         ArgumentNullException.ThrowIfNull(deferred);
-        threads = Math.Max(1, threads);
+        return threads <= 1 ? OnThisThread(deferred, options, spec, then, interrupt) : OnWorkers(deferred, options, spec, then, threads, interrupt);
+    }
+
+    /// <summary>
+    /// <see cref="Stream"/> with one thread: blocks read, computed and returned in turn on the caller's thread, with no
+    /// reader or worker thread, so <c>--threads 1</c> uses one core (for several processes side by side, or a machine
+    /// shared with other work). The same outcomes, failures and interrupt rule as with workers (tests compare them).
+    /// </summary>
+    private static IEnumerable<RecordOutcome> OnThisThread(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, CancellationToken interrupt)
+    {
+        using var source = deferred.GetEnumerator();
+        var items = new List<Func<InputRecord>>(BlockSize);
+        bool ended = false;
+        while (!ended)
+        {
+            Exception? readFailure = null;
+            try
+            {
+                while (items.Count < BlockSize && !(ended = interrupt.IsCancellationRequested || !source.MoveNext())) items.Add(source.Current);
+            }
+            catch (Exception ex)
+            {
+                readFailure = ex; // after the records read before it
+                ended = true;
+            }
+            if (items.Count > 0)
+            {
+                var outcomes = Compute([.. items], options, spec, then);
+                items.Clear();
+                foreach (var outcome in outcomes) yield return outcome;
+            }
+            if (readFailure is not null) ExceptionDispatchInfo.Throw(readFailure);
+        }
+    }
+
+    /// <summary><see cref="Stream"/> with worker threads (see the class remarks).</summary>
+    private static IEnumerable<RecordOutcome> OnWorkers(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads, CancellationToken interrupt)
+    {
         using var stop = new CancellationTokenSource();
         using var inOrder = new BlockingCollection<Block>(BlocksInFlightPerThread * threads);
         using var toCompute = new BlockingCollection<Block>();

@@ -24,6 +24,28 @@ public class RecordBlocksTests
 
     private static readonly AssessmentOptions Options = new();
 
+    [Fact]
+    public void One_thread_computes_on_the_callers_thread()
+    {
+        // --threads 1 uses one core: no reader or worker thread (issue 16), so every record is parsed where it is consumed.
+        int caller = Environment.CurrentManagedThreadId;
+        var threadsSeen = new HashSet<int>();
+        IEnumerable<Func<InputRecord>> Recorded()
+        {
+            for (int i = 0; i < 100; i++)
+            {
+                lock (threadsSeen) threadsSeen.Add(Environment.CurrentManagedThreadId);
+                var item = Item(i);
+                yield return () => { lock (threadsSeen) threadsSeen.Add(Environment.CurrentManagedThreadId); return item(); };
+            }
+        }
+        Assert.Equal(100, RecordBlocks.Stream(Recorded(), Options, null, o => o, 1).Count());
+        Assert.Equal([caller], threadsSeen);
+        threadsSeen.Clear();
+        Assert.Equal(100, RecordBlocks.Stream(Recorded(), Options, null, o => o, 2).Count());
+        Assert.DoesNotContain(caller, threadsSeen); // with workers, neither reading nor parsing is on the caller's thread
+    }
+
     [Theory]
     [InlineData(1, 0)]
     [InlineData(1, 1)]
@@ -38,11 +60,12 @@ public class RecordBlocksTests
         Assert.Equal(Enumerable.Range(0, count).Select(i => $"r{i}"), names);
     }
 
-    [Fact]
-    public void Stopping_early_stops_the_reader_within_the_read_ahead_window()
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    public void Stopping_early_stops_the_reader_within_the_read_ahead_window(int threads)
     {
         int pulled = 0;
-        const int threads = 2;
         var taken = RecordBlocks.Stream(Items(1_000_000, i => Interlocked.Exchange(ref pulled, i + 1)), Options, null, o => o, threads).Take(40).ToList();
         Assert.Equal(40, taken.Count);
         // Returned (the reader and workers were joined) having read at most the window ahead, not the million.
@@ -50,21 +73,25 @@ public class RecordBlocksTests
         Assert.InRange(Volatile.Read(ref pulled), 40, 40 + window);
     }
 
-    [Fact]
-    public void A_failure_in_a_records_step_reaches_the_caller_in_order()
+    [Theory]
+    [InlineData(1)]
+    [InlineData(3)]
+    public void A_failure_in_a_records_step_reaches_the_caller_in_order(int threads)
     {
         var seen = new List<string>();
         var ex = Assert.Throws<InvalidOperationException>(() =>
         {
-            foreach (var o in RecordBlocks.Stream(Items(500), Options, null, o => o.Record.Name == "r100" ? throw new InvalidOperationException("step failed") : o, 3))
+            foreach (var o in RecordBlocks.Stream(Items(500), Options, null, o => o.Record.Name == "r100" ? throw new InvalidOperationException("step failed") : o, threads))
                 seen.Add(o.Record.Name);
         });
         Assert.Equal("step failed", ex.Message);
         Assert.Equal(Enumerable.Range(0, 96).Select(i => $"r{i}"), seen); // the blocks before r100's block, nothing after
     }
 
-    [Fact]
-    public void A_failing_input_gives_what_was_read_then_the_failure()
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    public void A_failing_input_gives_what_was_read_then_the_failure(int threads)
     {
         static IEnumerable<Func<InputRecord>> Failing()
         {
@@ -74,18 +101,20 @@ public class RecordBlocksTests
         var seen = new List<string>();
         var ex = Assert.Throws<IOException>(() =>
         {
-            foreach (var o in RecordBlocks.Stream(Failing(), Options, null, o => o, 2)) seen.Add(o.Record.Name);
+            foreach (var o in RecordBlocks.Stream(Failing(), Options, null, o => o, threads)) seen.Add(o.Record.Name);
         });
         Assert.Equal("disk went away", ex.Message);
         Assert.Equal(Enumerable.Range(0, 100).Select(i => $"r{i}"), seen); // every record read before the failure
     }
 
-    [Fact]
-    public void An_interrupt_stops_reading_and_returns_what_was_read()
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    public void An_interrupt_stops_reading_and_returns_what_was_read(int threads)
     {
         using var interrupt = new CancellationTokenSource();
         int pulled = 0;
-        var outcomes = RecordBlocks.Stream(Items(1_000_000, i => { if (Interlocked.Increment(ref pulled) == 50) interrupt.Cancel(); }), Options, null, o => o, 2, interrupt.Token).ToList();
+        var outcomes = RecordBlocks.Stream(Items(1_000_000, i => { if (Interlocked.Increment(ref pulled) == 50) interrupt.Cancel(); }), Options, null, o => o, threads, interrupt.Token).ToList();
         Assert.InRange(outcomes.Count, 48, 50); // everything read before the signal, nothing after
         Assert.Equal(Enumerable.Range(0, outcomes.Count).Select(i => $"r{i}"), outcomes.Select(o => o.Record.Name));
     }
