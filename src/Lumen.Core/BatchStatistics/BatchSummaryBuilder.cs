@@ -156,8 +156,14 @@ public sealed class BatchSummaryBuilder
             fromMean.Add(fromMeanValues[i]);
         }
         var fromTarget = new RunningStatistics();
-        var targetValues = _stepsTarget.Where(float.IsFinite).Select(x => (double)x).ToArray();
-        foreach (var x in targetValues) fromTarget.Add(x);
+        var targetValues = new double[_stepsTarget.Count(float.IsFinite)];
+        int t = 0;
+        foreach (var x in _stepsTarget)
+        {
+            if (!float.IsFinite(x)) continue;
+            targetValues[t++] = x;
+            fromTarget.Add(x);
+        }
 
         if (_pooled is not null) foreach (var p in _pooled.Values) p.CloseAll();
         var caps = _limits.Select(l => CapabilityIndex.Of(l.Field, _limited[l.Field], l.Min, l.Max, _pooled?[l.Field])).ToList();
@@ -165,7 +171,7 @@ public sealed class BatchSummaryBuilder
 
         var groups = _groups?.OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => new GroupSummary(g.Key, g.Value.Build())).ToArray();
         return new BatchSummary(_records, _records - _errors, _errors, _passed, _failed,
-            _stats, mu, mv, MaxPairwise(), fromMean, Percentile(fromMeanValues, 0.95), fromTarget, Percentile(targetValues, 0.95), Outliers(), caps)
+            _stats, mu, mv, MaxPairwise(), fromMean, OrderStatistics.Percentile(fromMeanValues, 0.95), fromTarget, OrderStatistics.Percentile(targetValues, 0.95), Outliers(), caps) // both arrays are this method's own: rearranged, not copied
         {
             GroupedBy = _options.GroupBy,
             Inconclusive = _inconclusive,
