@@ -58,7 +58,15 @@ internal static class RecordBlocks
             Exception? readFailure = null;
             try
             {
-                while (items.Count < BlockSize && !(ended = interrupt.IsCancellationRequested || !source.MoveNext())) items.Add(source.Current);
+                while (items.Count < BlockSize)
+                {
+                    if (interrupt.IsCancellationRequested || !source.MoveNext())
+                    {
+                        ended = true;
+                        break;
+                    }
+                    items.Add(source.Current);
+                }
             }
             catch (Exception ex)
             {
