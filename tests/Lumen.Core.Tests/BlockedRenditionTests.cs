@@ -338,6 +338,27 @@ public class BlockedRenditionTests
     }
 
     [Fact]
+    public void Blocked_sums_in_512_bit_pairs_equal_the_256_bit_groups_bit_for_bit()
+    {
+        // Results must not depend on the processor's vector width (issue 16): where 512-bit vectors run, groups of eight
+        // spectra must give the very bits of groups of four. (Without them both calls take the same path.)
+        var rng = new Random(512);
+        foreach (int n in new[] { 3, 4, 5, 7, 81, 401 })
+            foreach (int vectors in new[] { 1, 7, 8, 9, 12, 15, 16, 17, 33 })
+            {
+                double[] R() => Enumerable.Range(0, n).Select(_ => rng.NextDouble() * 3 - 0.5).ToArray();
+                var weights = Enumerable.Range(0, 9).Select(_ => R()).ToArray();
+                var spectra = Enumerable.Range(0, vectors).Select(_ => R()).ToArray();
+                var wide = new double[vectors * 9];
+                var narrow = new double[vectors * 9];
+                SpectralSum.Many(weights, spectra, wide, eightWide: true);
+                SpectralSum.Many(weights, spectra, narrow, eightWide: false);
+                for (int i = 0; i < wide.Length; i++)
+                    Assert.True(BitConverter.DoubleToInt64Bits(wide[i]) == BitConverter.DoubleToInt64Bits(narrow[i]), $"n {n}, vectors {vectors}, sum {i}: {wide[i]:R} vs {narrow[i]:R}");
+            }
+    }
+
+    [Fact]
     public void Blocked_sums_refuse_mismatched_shapes()
     {
         var w = new[] { new double[4], new double[4], new double[4] };
