@@ -42,7 +42,7 @@ internal sealed class CompareCommand(TextReader stdin, TextWriter stdout, TextWr
         var filters = new List<Spectrum>();
         foreach (var f in SpectrumFiles.Expand(parse.GetValue(Filters) ?? []))
         {
-            if (f.Problem is { } p) { stderr.WriteLine($"lumen: {f.Path}:0:0: {p}"); anyError = true; continue; }
+            if (f.Problem is { } p) { CommonOptions.ReportError(stderr, new ReadDiagnostic(f.Path, 0, 0, p)); anyError = true; continue; }
             foreach (var r in SpectrumFiles.Read(f.Path, SpectralUnit.Relative, stdin))
             {
                 if (r is SpectrumRecord s) filters.Add(s.Spectrum);

@@ -7,6 +7,10 @@ namespace Lumen.Analysis;
 /// <param name="Message">What was found and what was expected, in plain words.</param>
 public sealed record ReadDiagnostic(string Source, int Line, int Column, string Message)
 {
-    /// <inheritdoc/>
-    public override string ToString() => $"{Source}:{Line}:{Column}: {Message}";
+    /// <summary>
+    /// <c>file:line:column: message</c>, the location as precise as it is known: <c>file:line: message</c> for a whole
+    /// line and <c>file: message</c> for a whole file (never a line or column 0, which no editor can go to).
+    /// </summary>
+    /// <returns>The located message.</returns>
+    public override string ToString() => Line <= 0 ? $"{Source}: {Message}" : Column <= 0 ? $"{Source}:{Line}: {Message}" : $"{Source}:{Line}:{Column}: {Message}";
 }
