@@ -24,8 +24,10 @@ public static class RowSpectrumReader
     /// <param name="firstRow">The row.</param>
     /// <returns>
     /// Rows when the row ends in at least 10 strictly ascending numbers between 100 and 5000 nm that form a plausible
-    /// wavelength grid (reaching into 380–780 nm, steps within a factor of 4 of the median step); otherwise columns — so a
-    /// column file whose header names its spectra by serial numbers stays a column file.
+    /// wavelength grid (reaching into 380–780 nm, steps within a factor of 4 of the median step), or in such a grid
+    /// written longest wavelength first (read as rows so that the reader can say the header descends, instead of
+    /// reading the rows as columns); otherwise columns — so a column file whose header names its spectra by serial
+    /// numbers stays a column file.
     /// </returns>
     public static TableLayout DetectLayout(string firstRow)
     {
@@ -33,13 +35,21 @@ public static class RowSpectrumReader
         char d = DelimitedSpectrumReader.DetectDelimiter(firstRow);
         var cells = Cells(firstRow, d);
         int k = WavelengthStart(cells, d);
-        return k >= 0 && PlausibleGrid(cells, k, d) ? TableLayout.Rows : TableLayout.Columns;
+        if (k >= 0 && PlausibleGrid(Numbers(cells, k, d))) return TableLayout.Rows;
+        int j = DescendingStart(cells, d);
+        return j >= 0 && PlausibleGrid([.. Numbers(cells, j, d).Reverse()]) ? TableLayout.Rows : TableLayout.Columns;
     }
 
-    private static bool PlausibleGrid(string[] cells, int start, char d)
+    private static double[] Numbers(string[] cells, int start, char d)
     {
         var w = new double[cells.Length - start];
         for (int i = 0; i < w.Length; i++) DelimitedSpectrumReader.TryParseNumber(cells[start + i], d, out w[i]);
+        return w;
+    }
+
+    /// <summary>Whether ascending wavelengths form a plausible grid (see <see cref="DetectLayout"/>).</summary>
+    private static bool PlausibleGrid(double[] w)
+    {
         if (w[0] > 780 || w[^1] < 380) return false;
         var steps = new double[w.Length - 1];
         for (int i = 0; i < steps.Length; i++) steps[i] = w[i + 1] - w[i];
@@ -93,6 +103,20 @@ public static class RowSpectrumReader
         while (k > 0 && DelimitedSpectrumReader.TryParseNumber(cells[k - 1], d, out double w) && w > 100 && w < 5000 && w < next)
         {
             next = w;
+            k--;
+        }
+        return cells.Length - k >= MinimumWavelengths ? k : -1;
+    }
+
+    /// <summary>Index of the first cell of a run of at least <see cref="MinimumWavelengths"/> strictly descending
+    /// wavelengths (100–5000 nm) that ends the row, or -1.</summary>
+    private static int DescendingStart(string[] cells, char d)
+    {
+        int k = cells.Length;
+        double previous = double.NegativeInfinity;
+        while (k > 0 && DelimitedSpectrumReader.TryParseNumber(cells[k - 1], d, out double w) && w > 100 && w < 5000 && w > previous)
+        {
+            previous = w;
             k--;
         }
         return cells.Length - k >= MinimumWavelengths ? k : -1;
@@ -184,8 +208,11 @@ public static class RowSpectrumReader
                 int idColumns = WavelengthStart(header, d);
                 if (idColumns < 0)
                 {
-                    var e = new ErrorRecord(source, 0, Path.GetFileName(source),
-                        new ReadDiagnostic(source, lineNo, 1, $"first row is not a wavelength header; expected optional ID columns then at least {MinimumWavelengths} ascending wavelengths in nm"));
+                    int descending = DescendingStart(header, d);
+                    var e = new ErrorRecord(source, 0, Path.GetFileName(source), descending >= 0
+                        ? new ReadDiagnostic(source, lineNo, descending + 2,
+                            $"the wavelengths descend ({header[descending + 1]} nm follows {header[descending]} nm); expected ascending wavelengths, shortest first: reverse the wavelength columns")
+                        : new ReadDiagnostic(source, lineNo, 1, $"first row is not a wavelength header; expected optional ID columns then at least {MinimumWavelengths} ascending wavelengths in nm"));
                     yield return () => e;
                     yield break;
                 }

@@ -228,6 +228,26 @@ public class RowReaderTests
     }
 
     [Fact]
+    public void A_header_written_longest_wavelength_first_is_named_as_descending()
+    {
+        // Read as columns, such a file gave one error per "column" naming an ID cell as a bad wavelength; it is a row
+        // file whose header descends, and the error says so at the header cell that breaks the ascending order.
+        string header = "id," + string.Join(",", Enumerable.Range(0, 81).Select(i => 780 - 5 * i));
+        Assert.Equal(TableLayout.Rows, RowSpectrumReader.DetectLayout(header));
+        // Serial numbers that descend but are no plausible grid (none in 380–780 nm) keep a column file a column file.
+        Assert.Equal(TableLayout.Columns, RowSpectrumReader.DetectLayout("wavelength_nm," + string.Join(",", Enumerable.Range(0, 12).Select(i => 1012 - i))));
+        var text = header + "\n" + Row("U1,") + "\n" + Row("U2,") + "\n";
+        var streamed = Assert.Single(RowSpectrumReader.Read(new StringReader(text), "desc.csv", "desc"));
+        using var lines = LineReader.Open(new MemoryStream(Encoding.UTF8.GetBytes(text)));
+        var deferred = Assert.Single(RowSpectrumReader.ReadDeferred(lines, "desc.csv", "desc"))();
+        foreach (var record in new[] { streamed, deferred })
+        {
+            Assert.Equal((1, 3), (record.Error!.Line, record.Error!.Column));
+            Assert.Contains("wavelengths descend (775 nm follows 780 nm)", record.Error!.Message, StringComparison.Ordinal);
+        }
+    }
+
+    [Fact]
     public void Header_without_wavelengths_is_one_error()
     {
         var recs = RowSpectrumReader.Read(new StringReader("id,a,b\n1,2,3\n"), "x.csv", "x").ToList();
