@@ -79,11 +79,27 @@ public static class FidelityIndex
                 vectors[j] = OnGrid(tests[members[j]], step, n);
                 references[j] = ReferenceIlluminants.ForCie224(cctsKelvin[members[j]], FirstNm, step, n);
             }
-            // Under a Planckian or blend reference the samples' appearance is interpolated (its sums are then not needed).
-            var interpolated = new ReferenceAppearance?[members.Count];
-            for (int j = 0; j < members.Count; j++) interpolated[j] = ReferenceAppearance.TryInterpolated(table, references[j]);
-            var group = table.Evaluate(vectors, references, (t, r, reference, j) => FromSums(t, r, reference, table, interpolated[j]), [.. interpolated.Select(a => a is not null)]);
-            for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
+            // Under a Planckian or blend reference the samples' appearance is interpolated (its sums are then not needed),
+            // into pooled arrays: it lives only until the spectrum's result is made.
+            var pool = System.Buffers.ArrayPool<double>.Shared;
+            var binPool = System.Buffers.ArrayPool<int>.Shared;
+            double[] jab = pool.Rent(members.Count * 3 * SampleCount);
+            int[] bins = binPool.Rent(members.Count * SampleCount);
+            try
+            {
+                var interpolated = new bool[members.Count];
+                for (int j = 0; j < members.Count; j++)
+                    interpolated[j] = ReferenceAppearance.TryInterpolated(table, references[j], jab.AsSpan(j * 3 * SampleCount, 3 * SampleCount), bins.AsSpan(j * SampleCount, SampleCount));
+                var group = table.Evaluate(vectors, references, (t, r, reference, j) => interpolated[j]
+                    ? FromSums(t, jab.AsSpan(j * 3 * SampleCount, 3 * SampleCount), bins.AsSpan(j * SampleCount, SampleCount), reference)
+                    : FromSums(t, r, reference, table), interpolated);
+                for (int j = 0; j < members.Count; j++) results[members[j]] = group[j];
+            }
+            finally
+            {
+                pool.Return(jab);
+                binPool.Return(bins);
+            }
         }
         return results;
     }
@@ -95,16 +111,19 @@ public static class FidelityIndex
         int n = (LastNm - FirstNm) / step + 1;
         var table = SampleSums.For(CieTables.Load(step == 5 ? "cfi_colour_evaluation_samples_5nm" : "cfi_colour_evaluation_samples_1nm"), Observer.Cie1964TenDegree, FirstNm, step, n);
         var reference = ReferenceIlluminants.ForCie224(cctKelvin, FirstNm, step, n);
-        if (ReferenceAppearance.TryInterpolated(table, reference) is not { } interpolated) return null;
+        var interpolated = new double[3 * SampleCount];
+        if (!ReferenceAppearance.TryInterpolated(table, reference, interpolated, new int[SampleCount])) return null;
         var sums = new double[table.RowCount];
         table.Compute([new double[n]], [reference], new double[table.RowCount], sums);
         var computed = ReferenceAppearance.Of(sums);
-        return ([.. interpolated.J, .. interpolated.A, .. interpolated.B], [.. computed.J, .. computed.A, .. computed.B]);
+        return (interpolated, computed.Jab);
     }
 
-    /// <summary>The test spectrum on the 380–780 nm grid of the CES table (zero where it was not measured).</summary>
+    /// <summary>The test spectrum on the 380–780 nm grid of the CES table (zero where it was not measured): its own values
+    /// when it is on that very grid (the usual case; read only, as <see cref="RegularSamples.Values"/> are), else a copy.</summary>
     private static double[] OnGrid(RegularSamples test, int step, int n)
     {
+        if (test.StepNm == step && test.StartNm == FirstNm && test.Values.Length == n) return test.Values;
         var s = new double[n];
         if (test.StepNm == step && (FirstNm - test.StartNm) % step == 0)
         {
@@ -123,20 +142,27 @@ public static class FidelityIndex
         return s;
     }
 
-    /// <summary>Rf, Rg and the hue bins from the white and sample sums under the test and its reference.</summary>
-    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> refSums, ReferenceIlluminant reference, SampleSums table, ReferenceAppearance? interpolated)
+    /// <summary>Rf, Rg and the hue bins from the white and sample sums under the test and its reference, the samples'
+    /// appearance under the reference computed from its sums (for CIE daylight the same for every CCT of one (M1, M2)
+    /// pair, so kept).</summary>
+    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> refSums, ReferenceIlluminant reference, SampleSums table)
+    {
+        var under = reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of) : ReferenceAppearance.Of(refSums);
+        return FromSums(testSums, under.Jab, under.Bin, reference);
+    }
+
+    /// <summary>Rf, Rg and the hue bins from the white and sample sums under the test and the samples' J′, a′, b′ (99 of
+    /// each, in that order) and hue bin under the reference. Under a Planckian reference (below 4000 K) they are a smooth
+    /// function of the temperature, interpolated; under a blend (4000–5000 K) too while the daylight part's (M1, M2) pair
+    /// holds, interpolated per pair.</summary>
+    private static FidelityResult FromSums(ReadOnlySpan<double> testSums, ReadOnlySpan<double> referenceJab, ReadOnlySpan<int> rBin, ReferenceIlluminant reference)
     {
         Span<double> tJ = stackalloc double[SampleCount], tA = stackalloc double[SampleCount], tB = stackalloc double[SampleCount];
         Appearance(testSums, tJ, tA, tB, default);
-        // The samples under the reference: for CIE daylight the same for every CCT of one (M1, M2) pair, so kept.
-        // For a Planckian reference (below 4000 K) it is a smooth function of the temperature, interpolated; for a blend
-        // (4000–5000 K) too while the daylight part's (M1, M2) pair holds, interpolated per pair.
-        var under = interpolated ?? (reference.Kind == ReferenceKind.CieDaylight ? table.ForDaylight(reference, refSums, ReferenceAppearance.Of) : ReferenceAppearance.Of(refSums));
-        ReadOnlySpan<double> rJ = under.J, rA = under.A, rB = under.B;
-        ReadOnlySpan<int> rBin = under.Bin;
+        ReadOnlySpan<double> rJ = referenceJab[..SampleCount], rA = referenceJab.Slice(SampleCount, SampleCount), rB = referenceJab.Slice(2 * SampleCount, SampleCount);
 
         var rfCes = new double[SampleCount];
-        var de = new double[SampleCount];
+        Span<double> de = stackalloc double[SampleCount];
         double sum = 0;
         for (int i = 0; i < SampleCount; i++)
         {
@@ -216,9 +242,9 @@ public static class FidelityIndex
     /// <summary>The 99 samples' CAM02-UCS J′, a′, b′ and TM-30 hue bin under a reference.</summary>
     private sealed class ReferenceAppearance
     {
-        public double[] J { get; } = new double[SampleCount];
-        public double[] A { get; } = new double[SampleCount];
-        public double[] B { get; } = new double[SampleCount];
+        /// <summary>J′, a′, b′ of the 99 samples: 99 of each, in that order.</summary>
+        public double[] Jab { get; } = new double[3 * SampleCount];
+
         public int[] Bin { get; } = new int[SampleCount];
 
         public static ReferenceAppearance Of(double[] sums) => Of((ReadOnlySpan<double>)sums);
@@ -230,34 +256,32 @@ public static class FidelityIndex
         /// <summary>Under a Planckian reference of 1000–4000 K (the CIE 224 Planckian range): J′, a′, b′ interpolated in
         /// the mired from a table built once per grid (<see cref="SampleSums.TryPlanckianDerived"/>); under a blend
         /// (4000–5000 K), from a table per (M1, M2) pair and cell (<see cref="SampleSums.TryBlendDerived"/>); the hue from
-        /// a′ and b′ as <see cref="Ciecam02.ForwardUcs"/> gives it. Null without a table (daylight, or none built).</summary>
-        public static ReferenceAppearance? TryInterpolated(SampleSums table, ReferenceIlluminant reference)
+        /// a′ and b′ as <see cref="Ciecam02.ForwardUcs"/> gives it. False without a table (daylight, or none built).</summary>
+        /// <param name="table">The sample sums' table.</param>
+        /// <param name="reference">The reference.</param>
+        /// <param name="jab">Output: J′, a′, b′ of the 99 samples (99 of each, in that order).</param>
+        /// <param name="bins">Output: the hue bin (0–15) of each sample.</param>
+        public static bool TryInterpolated(SampleSums table, ReferenceIlluminant reference, Span<double> jab, Span<int> bins)
         {
-            Span<double> jab = stackalloc double[3 * SampleCount];
             bool found = reference.Kind switch
             {
-                ReferenceKind.Planckian => table.TryPlanckianDerived(reference.CctKelvin, 4000, 3 * SampleCount, Jab, Tolerance, jab),
-                ReferenceKind.Blend => table.TryBlendDerived(reference, 3 * SampleCount, Jab, Tolerance, jab),
+                ReferenceKind.Planckian => table.TryPlanckianDerived(reference.CctKelvin, 4000, 3 * SampleCount, JabOf, Tolerance, jab),
+                ReferenceKind.Blend => table.TryBlendDerived(reference, 3 * SampleCount, JabOf, Tolerance, jab),
                 _ => false,
             };
-            if (!found) return null;
-            var r = new ReferenceAppearance();
-            jab[..SampleCount].CopyTo(r.J); jab.Slice(SampleCount, SampleCount).CopyTo(r.A); jab.Slice(2 * SampleCount, SampleCount).CopyTo(r.B);
-            for (int i = 0; i < SampleCount; i++) r.Bin[i] = BinOf(r.A[i], r.B[i]);
-            return r;
+            if (!found) return false;
+            for (int i = 0; i < SampleCount; i++) bins[i] = BinOf(jab[SampleCount + i], jab[2 * SampleCount + i]);
+            return true;
         }
 
-        private static double[] Jab(double[] sums)
-        {
-            var r = Of(sums);
-            return [.. r.J, .. r.A, .. r.B];
-        }
+        private static double[] JabOf(double[] sums) => Of(sums).Jab;
 
         public static ReferenceAppearance Of(ReadOnlySpan<double> sums)
         {
             var r = new ReferenceAppearance();
             Span<double> hue = stackalloc double[SampleCount];
-            Appearance(sums, r.J, r.A, r.B, hue);
+            var jab = r.Jab.AsSpan();
+            Appearance(sums, jab[..SampleCount], jab.Slice(SampleCount, SampleCount), jab.Slice(2 * SampleCount, SampleCount), hue);
             for (int i = 0; i < SampleCount; i++) r.Bin[i] = BinOf(hue[i]);
             return r;
         }
