@@ -254,9 +254,10 @@ public static class FidelityIndex
         public const double Tolerance = 1e-11;
 
         /// <summary>Under a Planckian reference of 1000–4000 K (the CIE 224 Planckian range): J′, a′, b′ interpolated in
-        /// the mired from a table built once per grid (<see cref="SampleSums.TryPlanckianDerived"/>); under a blend
-        /// (4000–5000 K), from a table per (M1, M2) pair and cell (<see cref="SampleSums.TryBlendDerived"/>); the hue from
-        /// a′ and b′ as <see cref="Ciecam02.ForwardUcs"/> gives it. False without a table (daylight, or none built).</summary>
+        /// the mired from a table made once per grid, piece by piece as temperatures need them
+        /// (<see cref="SampleSums.TryPlanckianDerived"/>); under a blend (4000–5000 K), from a table per (M1, M2) pair and
+        /// cell (<see cref="SampleSums.TryBlendDerived"/>); the hue from a′ and b′ as <see cref="Ciecam02.ForwardUcs"/>
+        /// gives it. False without a table (daylight, or none built).</summary>
         /// <param name="table">The sample sums' table.</param>
         /// <param name="reference">The reference.</param>
         /// <param name="jab">Output: J′, a′, b′ of the 99 samples (99 of each, in that order).</param>

@@ -9,9 +9,9 @@ namespace Lumen.Rendition;
 /// </summary>
 /// <remarks>
 /// F_r is a positive, smooth function of μ (a sum of exponentials in μ weighted by positive weights), so its logarithm is
-/// interpolated to full double precision: the table checks itself when built, at the midpoint between every two
-/// interpolation nodes, and is used only if every row agrees with the direct sum there within 1e-12 relative (else every
-/// Planckian reference is summed directly, as before). The interpolation nodes are Planckian spectra from
+/// interpolated to full double precision: each piece checks itself when first used, at the midpoint between every two of
+/// its interpolation nodes, and is used only if every row agrees with the direct sum there within 1e-12 relative (else
+/// the Planckian references it covers are summed directly, as before). The interpolation nodes are Planckian spectra from
 /// <see cref="ReferenceIlluminants.Planckian"/>, the function that makes the reference spectra themselves.
 /// </remarks>
 internal sealed class PlanckianSums
@@ -29,13 +29,13 @@ internal sealed class PlanckianSums
 
     private PlanckianSums(MiredChebyshev table) => _table = table;
 
-    /// <summary>Builds and checks the table for some weight rows on a grid; null when the check fails.</summary>
+    /// <summary>The table for some weight rows on a grid; its pieces are fitted and checked on first use.</summary>
     /// <param name="rows">Weight rows (a multiple of 3).</param>
     /// <param name="startNm">Grid start, whole nm.</param>
     /// <param name="stepNm">Grid step, whole nm.</param>
     /// <param name="count">Grid size.</param>
-    /// <returns>The table, or null to sum Planckian references directly.</returns>
-    public static PlanckianSums? Build(double[][] rows, int startNm, int stepNm, int count)
+    /// <returns>The table.</returns>
+    public static PlanckianSums Build(double[][] rows, int startNm, int stepNm, int count)
     {
         double[] SumsAt(double[] mireds)
         {
@@ -44,13 +44,12 @@ internal sealed class PlanckianSums
             SpectralSum.Many(rows, spectra, sums);
             return sums;
         }
-        var table = MiredChebyshev.Build(MinMired, MaxMired, rows.Length, logarithmic: true, SumsAt, (t, d) => Math.Abs(t - d) <= Agreement * Math.Abs(d));
-        return table is null ? null : new PlanckianSums(table);
+        return new PlanckianSums(MiredChebyshev.Build(MinMired, MaxMired, rows.Length, logarithmic: true, SumsAt, (t, d) => Math.Abs(t - d) <= Agreement * Math.Abs(d)));
     }
 
     /// <summary>The sums of every row for a Planckian radiator (normalised as <see cref="ReferenceIlluminants.Planckian"/>).</summary>
     /// <param name="temperatureKelvin">Temperature, K.</param>
     /// <param name="sums">Output, one value per row.</param>
-    /// <returns>False outside 1000–5000 K (sum the spectrum directly then).</returns>
+    /// <returns>False outside 1000–5000 K, or where the table's piece failed its check (sum the spectrum directly then).</returns>
     public bool TryEvaluate(double temperatureKelvin, Span<double> sums) => _table.TryEvaluate(temperatureKelvin, sums);
 }

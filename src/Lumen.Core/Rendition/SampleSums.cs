@@ -98,9 +98,10 @@ internal sealed class SampleSums
     /// <summary>
     /// What an index derives from a Planckian reference's sums (e.g. the samples' appearance under it), interpolated in
     /// the mired over 1000 K to <paramref name="upToKelvin"/> from the values derived at the interpolation nodes
-    /// (<see cref="MiredChebyshev"/>; the table is used only if it agrees with the derivation within
-    /// <paramref name="tolerance"/> everywhere it checks). Built once per table on first use, from that call's
-    /// arguments: a table serves one derivation (each index has its own table of sample sums).
+    /// (<see cref="MiredChebyshev"/>; a piece of the table is used only if it agrees with the derivation within
+    /// <paramref name="tolerance"/> everywhere it checks). Made once per table on first use, from that call's
+    /// arguments: a table serves one derivation (each index has its own table of sample sums); each piece is fitted on
+    /// its first use.
     /// </summary>
     /// <param name="temperatureKelvin">The reference's temperature, K.</param>
     /// <param name="upToKelvin">Highest temperature tabulated (at most 5000 K, the Planckian sums' range).</param>
@@ -124,9 +125,9 @@ internal sealed class SampleSums
     private MiredChebyshev? BuildPlanckianDerived(double upToKelvin, int width, Func<double[], double[]> derive, double tolerance)
     {
         if (_planckian.Value is not { } planckian) return null;
-        var sums = new double[RowCount];
         double[] At(double[] mireds)
         {
+            var sums = new double[RowCount];
             var values = new double[mireds.Length * width];
             for (int i = 0; i < mireds.Length; i++)
             {
