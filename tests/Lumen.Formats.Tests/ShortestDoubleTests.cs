@@ -120,7 +120,7 @@ public sealed class ShortestDoubleTests
     }
 }
 
-/// <summary>The robust-z column's text, now written through the shortest round-trip digits, equals the custom format it
+/// <summary>The robust-z column's text, written from the integer number of thousandths, equals the custom format it
 /// replaced (rounded to three decimals, <c>0.###</c>) on every kind of z.</summary>
 public sealed class RobustZTextTests
 {
