@@ -122,7 +122,10 @@ public static class DelimitedSpectrumReader
             }
             if (!InstrumentExport.TryParseWavelength(cells[0], delimiter.Value, factor, out double w) || w <= 0)
             {
-                fileError = new ReadDiagnostic(source, lineNo, 1, $"'{Shorten(cells[0])}' is not a wavelength; expected a positive number of nm");
+                fileError = new ReadDiagnostic(source, lineNo, 1, $"'{Shorten(cells[0])}' is not a wavelength; expected a positive number of nm"
+                    + (LooksLikeShortRowHeader(header, delimiter.Value)
+                        ? $" (read as columns, wavelengths down the first column: the header's other cells are wavelengths, as in a row-layout file, one spectrum per row, which needs at least {RowSpectrumReader.MinimumWavelengths} of them)"
+                        : ""));
                 continue;
             }
             if (wavelengths!.Count > 0 && w <= wavelengths[^1])
@@ -222,6 +225,16 @@ public static class DelimitedSpectrumReader
 
     private static ErrorRecord FileError(string source, int line, int column, string message) =>
         new(source, 0, Path.GetFileName(source), new ReadDiagnostic(source, line, column, message));
+
+    /// <summary>A column-layout header whose cells after the first are all wavelength-like numbers: a row-layout header
+    /// too short to be recognised as one.</summary>
+    private static bool LooksLikeShortRowHeader(string[]? header, char delimiter)
+    {
+        if (header is null || header.Length < 2) return false;
+        for (int i = 1; i < header.Length; i++)
+            if (!TryParseNumber(header[i], delimiter, out double w) || !(w > 100 && w < 5000)) return false;
+        return true;
+    }
 
     private static string Shorten(string s) => s.Length <= 24 ? s : s[..21] + "...";
 

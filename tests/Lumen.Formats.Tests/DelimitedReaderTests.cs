@@ -25,6 +25,20 @@ public class DelimitedReaderTests
     }
 
     [Fact]
+    public void A_row_layout_header_too_short_to_be_recognised_is_named_in_the_error()
+    {
+        // Two wavelengths across the top are too few for a row-layout header, so the file is read as columns and the
+        // first data row's ID is not a wavelength: the error says which layout was assumed and why.
+        var r = Read("unit_id,380,381\nA1,1,2\n");
+        Assert.All(r, x => Assert.Contains("read as columns", x.Error!.Message, StringComparison.Ordinal));
+        Assert.Contains($"at least {RowSpectrumReader.MinimumWavelengths}", r[0].Error!.Message, StringComparison.Ordinal);
+        Assert.Equal((2, 1), (r[0].Error!.Line, r[0].Error!.Column));
+        // A column file with named spectra keeps the plain message.
+        var named = Read("nm,lampA\n400,1\nx,2\n");
+        Assert.DoesNotContain("read as columns", Assert.Single(named).Error!.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void File_without_header_names_spectra_stem_hash_k()
     {
         var r = Read(Rows(','));
