@@ -101,12 +101,21 @@ public sealed class CieTable
         {
             lineNo++;
             if (line.Length == 0) continue;
-            var cells = line.Split(',');
-            if (cells.Length != names.Length + 1)
+            // Cells read in place (every process reads these tables before its first result; splitting each line into
+            // strings was a third of that).
+            ReadOnlySpan<char> rest = line;
+            if (rest.Count(',') != names.Length)
                 throw new InvalidDataException($"data-cie/{name}.csv line {lineNo}: expected {names.Length + 1} cells.");
-            wavelengths.Add(int.Parse(cells[0], NumberStyles.Integer, CultureInfo.InvariantCulture));
+            int comma = rest.IndexOf(',');
+            wavelengths.Add(int.Parse(rest[..comma], NumberStyles.Integer, CultureInfo.InvariantCulture));
+            rest = rest[(comma + 1)..];
             for (int c = 0; c < names.Length; c++)
-                cols[c].Add(cells[c + 1].Length == 0 ? 0.0 : double.Parse(cells[c + 1], NumberStyles.Float, CultureInfo.InvariantCulture));
+            {
+                comma = rest.IndexOf(',');
+                var cell = comma < 0 ? rest : rest[..comma];
+                cols[c].Add(cell.Length == 0 ? 0.0 : double.Parse(cell, NumberStyles.Float, CultureInfo.InvariantCulture));
+                rest = comma < 0 ? default : rest[(comma + 1)..];
+            }
         }
         int step = wavelengths[1] - wavelengths[0];
         var dict = new Dictionary<string, double[]>(StringComparer.Ordinal);
