@@ -51,12 +51,19 @@ public sealed class CieTable
     /// <param name="column">A column name of the table, as in its header (e.g. <c>y_bar</c>); case-sensitive.</param>
     /// <param name="wavelengthNm">Wavelength in nm, a grid point.</param>
     /// <returns>The value, or 0 outside the range.</returns>
-    public double At(string column, int wavelengthNm)
+    public double At(string column, int wavelengthNm) => At(_columns[column], wavelengthNm);
+
+    /// <summary><see cref="At(string, int)"/> for a column already looked up (<see cref="Column"/>): for loops over
+    /// wavelengths, which otherwise look the column up by name once per value.</summary>
+    /// <param name="values">The column's values.</param>
+    /// <param name="wavelengthNm">Wavelength in nm, a grid point.</param>
+    /// <returns>The value, or 0 outside the range.</returns>
+    internal double At(ReadOnlySpan<double> values, int wavelengthNm)
     {
         int offset = wavelengthNm - StartNm;
         if (offset < 0 || offset % StepNm != 0) return 0;
         int i = offset / StepNm;
-        return i < Count ? _columns[column][i] : 0;
+        return i < Count ? values[i] : 0;
     }
 
     /// <summary>One column as a relative spectrum.</summary>

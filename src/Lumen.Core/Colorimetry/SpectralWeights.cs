@@ -40,7 +40,8 @@ internal sealed class SpectralWeights
             for (int c = 0; c < columns.Count; c++)
             {
                 w[c] = new double[count];
-                for (int k = 0; k < count; k++) w[c][k] = table.At(columns[c], startNm + k * stepNm) * stepNm;
+                var values = table.Column(columns[c]);
+                for (int k = 0; k < count; k++) w[c][k] = table.At(values, startNm + k * stepNm) * stepNm;
             }
             return new SpectralWeights(w);
         });
@@ -65,18 +66,19 @@ internal sealed class SpectralWeights
         {
             var cmf = CieTables.ColorMatchingFunctions(observer);
             var (cx, cy, cz) = CieTables.CmfColumns(observer);
+            ReadOnlySpan<double> xs = cmf.Column(cx), ys = cmf.Column(cy), zs = cmf.Column(cz);
             var w = new double[samples.ColumnNames.Count * 3][];
             for (int i = 0; i < samples.ColumnNames.Count; i++)
             {
-                var name = samples.ColumnNames[i];
+                var reflectance = samples.Column(samples.ColumnNames[i]);
                 w[3 * i] = new double[count]; w[3 * i + 1] = new double[count]; w[3 * i + 2] = new double[count];
                 for (int k = 0; k < count; k++)
                 {
                     int wl = startNm + k * stepNm;
-                    double r = samples.At(name, wl) * stepNm;
-                    w[3 * i][k] = r * cmf.At(cx, wl);
-                    w[3 * i + 1][k] = r * cmf.At(cy, wl);
-                    w[3 * i + 2][k] = r * cmf.At(cz, wl);
+                    double r = samples.At(reflectance, wl) * stepNm;
+                    w[3 * i][k] = r * cmf.At(xs, wl);
+                    w[3 * i + 1][k] = r * cmf.At(ys, wl);
+                    w[3 * i + 2][k] = r * cmf.At(zs, wl);
                 }
             }
             return new SpectralWeights(w);
