@@ -21,8 +21,8 @@ internal sealed class SampleSums
 {
     private static readonly ConcurrentDictionary<(string, Observer, int, int, int), SampleSums> Cache = new();
     private readonly double[] _daylight; // rows × 3: sums of S0, S1, S2
-    private readonly Lazy<PlanckianSums?> _planckian;
-    private readonly Lazy<(PlanckianSums? Planckian, double[] Daylight)> _blendY; // the CIE 224 blend's normalising Y
+    private readonly Lazy<PlanckianSums> _planckian;
+    private readonly Lazy<(PlanckianSums Planckian, double[] Daylight)> _blendY; // the CIE 224 blend's normalising Y
 
     private SampleSums(double[][] rows, int startNm, int stepNm, int count)
     {
@@ -109,22 +109,20 @@ internal sealed class SampleSums
     /// <param name="derive">Derives the values from the sums (pure, smooth in the temperature).</param>
     /// <param name="tolerance">Largest absolute difference accepted.</param>
     /// <param name="output">The values.</param>
-    /// <returns>False outside the range or without a table (derive from the sums then).</returns>
+    /// <returns>False outside the range or where the table's piece failed its check (derive from the sums then).</returns>
     public bool TryPlanckianDerived(double temperatureKelvin, double upToKelvin, int width, Func<double[], double[]> derive, double tolerance, Span<double> output)
     {
         if (!(temperatureKelvin >= 1000 && temperatureKelvin <= upToKelvin)) return false;
-        var table = LazyInitializer.EnsureInitialized(ref _planckianDerived, ref _planckianDerivedBuilt, ref _planckianDerivedLock,
-            () => BuildPlanckianDerived(upToKelvin, width, derive, tolerance));
-        return table is not null && table.TryEvaluate(temperatureKelvin, output);
+        // Two threads may both make the (empty) table; one is kept, and pieces are fitted only in the kept one.
+        var table = LazyInitializer.EnsureInitialized(ref _planckianDerived, () => BuildPlanckianDerived(upToKelvin, width, derive, tolerance));
+        return table.TryEvaluate(temperatureKelvin, output);
     }
 
-    private object? _planckianDerivedLock;
     private MiredChebyshev? _planckianDerived;
-    private bool _planckianDerivedBuilt;
 
-    private MiredChebyshev? BuildPlanckianDerived(double upToKelvin, int width, Func<double[], double[]> derive, double tolerance)
+    private MiredChebyshev BuildPlanckianDerived(double upToKelvin, int width, Func<double[], double[]> derive, double tolerance)
     {
-        if (_planckian.Value is not { } planckian) return null;
+        var planckian = _planckian.Value;
         double[] At(double[] mireds)
         {
             var sums = new double[RowCount];
@@ -209,8 +207,8 @@ internal sealed class SampleSums
             var r = references[i];
             if (referenceSumsUnused is not null && referenceSumsUnused[i]) { referenceSums.Slice(i * rows, rows).Fill(double.NaN); tabulated[i] = true; continue; }
             if (r.Kind == ReferenceKind.CieDaylight) continue;
-            if (r.Kind == ReferenceKind.Planckian && planckian is not null && planckian.TryEvaluate(r.CctKelvin, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
-            if (r.Kind == ReferenceKind.Blend && planckian is not null && TryBlend(planckian, r, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
+            if (r.Kind == ReferenceKind.Planckian && planckian.TryEvaluate(r.CctKelvin, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
+            if (r.Kind == ReferenceKind.Blend && TryBlend(planckian, r, referenceSums.Slice(i * rows, rows))) { tabulated[i] = true; continue; }
             vectors.Add(r.Samples.Values);
         }
         var rented = System.Buffers.ArrayPool<double>.Shared.Rent(vectors.Count * rows);
@@ -221,7 +219,8 @@ internal sealed class SampleSums
     /// <summary>
     /// The sums of a CIE 224 blend (1 − m)·P/Y_P + m·D/Y_D from tables: (1 − m)/Y_P·ΣwP + m/Y_D·ΣwD, with ΣwP and Y_P
     /// from Planckian tables and ΣwD and Y_D from the daylight components (linear, so equal to summing the blend up to
-    /// rounding). False when a table is missing or the temperature is outside it (the blend is then summed directly).
+    /// rounding). False when the temperature is outside a table or its piece failed its check (the blend is then summed
+    /// directly).
     /// </summary>
     private bool TryBlend(PlanckianSums planckian, ReferenceIlluminant r, Span<double> target) =>
         TryBlend(planckian, r.CctKelvin, r.DaylightFraction, ReferenceIlluminants.DaylightFactors(r.CctKelvin), target);
@@ -231,7 +230,7 @@ internal sealed class SampleSums
     {
         var (yTable, yDaylight) = _blendY.Value;
         Span<double> y = stackalloc double[3];
-        if (yTable is null || !yTable.TryEvaluate(cctKelvin, y) || !planckian.TryEvaluate(cctKelvin, target)) return false;
+        if (!yTable.TryEvaluate(cctKelvin, y) || !planckian.TryEvaluate(cctKelvin, target)) return false;
         var (m1, m2) = daylight;
         double a = (1 - m) / y[1], b = m / (yDaylight[0] + m1 * yDaylight[1] + m2 * yDaylight[2]);
         int rows = RowCount;
@@ -254,47 +253,44 @@ internal sealed class SampleSums
     /// <param name="derive">Derives the values from the sums (pure, smooth in the temperature for a fixed pair).</param>
     /// <param name="tolerance">Largest absolute difference accepted.</param>
     /// <param name="output">The values.</param>
-    /// <returns>False when not a blend or without a table (derive from the sums then).</returns>
+    /// <returns>False when not a blend or where the cell's table failed its check (derive from the sums then).</returns>
     public bool TryBlendDerived(ReferenceIlluminant reference, int width, Func<double[], double[]> derive, double tolerance, Span<double> output)
     {
         double t = reference.CctKelvin;
-        if (reference.Kind != ReferenceKind.Blend || !(t >= BlendLowKelvin && t <= BlendHighKelvin) || _planckian.Value is not { } planckian) return false;
+        if (reference.Kind != ReferenceKind.Blend || !(t >= BlendLowKelvin && t <= BlendHighKelvin)) return false;
+        var planckian = _planckian.Value;
         var pair = ReferenceIlluminants.DaylightFactors(t);
         int cell = Math.Clamp((int)((1e6 / t - 1e6 / BlendHighKelvin) / BlendCellMired), 0, BlendCells - 1);
-        if (!_blendDerived.TryGetValue((pair, cell), out var entry))
+        if (!_blendDerived.TryGetValue((pair, cell), out var table))
         {
             // Counting a concurrent dictionary takes all its locks: only on a miss, never on the per-unit path.
             if (_blendDerived.Count >= BlendDerivedLimit) _blendDerived.Clear(); // bounded; rebuilt as needed
-            entry = _blendDerived.GetOrAdd((pair, cell), _ => new BlendCell());
+            // Two threads may both make the (empty) table; one is kept, and it is fitted only there.
+            table = _blendDerived.GetOrAdd((pair, cell), _ => BlendTable(planckian, pair, cell, width, derive, tolerance));
         }
-        var table = LazyInitializer.EnsureInitialized(ref entry.Table, ref entry.Built, ref entry.Lock, () =>
-        {
-            double low = 1e6 / BlendHighKelvin + cell * BlendCellMired;
-            var sums = new double[RowCount];
-            double[] At(double[] mireds)
-            {
-                var values = new double[mireds.Length * width];
-                for (int i = 0; i < mireds.Length; i++)
-                {
-                    double k = 1e6 / mireds[i];
-                    if (!TryBlend(planckian, k, (k - BlendLowKelvin) / (BlendHighKelvin - BlendLowKelvin), pair, sums)) values.AsSpan(i * width, width).Fill(double.NaN);
-                    else derive(sums).CopyTo(values, i * width);
-                }
-                return values;
-            }
-            return MiredChebyshev.Build(low, low + BlendCellMired, width, logarithmic: false, At, (a, d) => Math.Abs(a - d) <= tolerance, pieces: 1, nodesPerPiece: BlendNodes);
-        });
-        return table is not null && table.TryEvaluate(t, output);
+        return table.TryEvaluate(t, output);
     }
 
-    private sealed class BlendCell
+    /// <summary>The blend cell's table of derived values (fitted on its first use).</summary>
+    private MiredChebyshev BlendTable(PlanckianSums planckian, (double M1, double M2) pair, int cell, int width, Func<double[], double[]> derive, double tolerance)
     {
-        public MiredChebyshev? Table;
-        public bool Built;
-        public object? Lock;
+        double low = 1e6 / BlendHighKelvin + cell * BlendCellMired;
+        double[] At(double[] mireds)
+        {
+            var sums = new double[RowCount];
+            var values = new double[mireds.Length * width];
+            for (int i = 0; i < mireds.Length; i++)
+            {
+                double k = 1e6 / mireds[i];
+                if (!TryBlend(planckian, k, (k - BlendLowKelvin) / (BlendHighKelvin - BlendLowKelvin), pair, sums)) values.AsSpan(i * width, width).Fill(double.NaN);
+                else derive(sums).CopyTo(values, i * width);
+            }
+            return values;
+        }
+        return MiredChebyshev.Build(low, low + BlendCellMired, width, logarithmic: false, At, (a, d) => Math.Abs(a - d) <= tolerance, pieces: 1, nodesPerPiece: BlendNodes);
     }
 
-    private readonly ConcurrentDictionary<((double M1, double M2) Pair, int Cell), BlendCell> _blendDerived = new();
+    private readonly ConcurrentDictionary<((double M1, double M2) Pair, int Cell), MiredChebyshev> _blendDerived = new();
 
     /// <summary>The CIE 224 blend's range, K (m = (T − 4000)/1000).</summary>
     private const double BlendLowKelvin = 4000, BlendHighKelvin = 5000;
