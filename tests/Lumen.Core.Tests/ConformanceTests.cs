@@ -137,6 +137,26 @@ public class ConformanceTests
     }
 
     [Fact]
+    public void Step_measure_about_a_moved_centre_keeps_the_axes()
+    {
+        // The summary measures units from the batch mean with one evaluated metric (issue 16). Same hand computation as
+        // above, about another centre: n a along the major axis and n b along the minor one are n steps, and each
+        // distance equals the ellipse's own Steps to the bit.
+        var e = StandardEllipses.ByNominalCct[4000].MovedTo(Chromaticity.FromXy(0.3712, 0.3698));
+        var m = e.Measure();
+        double t = e.ThetaDegrees * Math.PI / 180;
+        Assert.Equal(2.0, m.Steps(0.3712 + 2 * e.A * Math.Cos(t), 0.3698 + 2 * e.A * Math.Sin(t)), 9);
+        Assert.Equal(3.0, m.Steps(0.3712 - 3 * e.B * Math.Sin(t), 0.3698 + 3 * e.B * Math.Cos(t)), 9);
+        Assert.Equal(0.0, m.Steps(Chromaticity.FromXy(0.3712, 0.3698)), 12);
+        var random = new Random(16);
+        for (int i = 0; i < 1000; i++)
+        {
+            var c = Chromaticity.FromXy(0.36 + 0.02 * random.NextDouble(), 0.36 + 0.02 * random.NextDouble());
+            Assert.Equal(BitConverter.DoubleToInt64Bits(e.Steps(c)), BitConverter.DoubleToInt64Bits(m.Steps(c)));
+        }
+    }
+
+    [Fact]
     public void Spec_verdict_margins_are_on_the_passing_side_when_passing()
     {
         var spec = new ToleranceSpec("t", new ChromaticityTarget(TargetKind.NominalCct, 3000, 0), new ChromaticityTolerance(ToleranceKind.EllipseSteps, 3),

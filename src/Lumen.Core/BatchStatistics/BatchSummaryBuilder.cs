@@ -148,11 +148,11 @@ public sealed class BatchSummaryBuilder
         var fromMean = new RunningStatistics();
         var fromMeanValues = new double[n];
         var mean = Chromaticity.FromUPrimeVPrime(mu, mv);
-        var aroundMean = _ellipse?.MovedTo(mean); // once, not once per record
+        var aroundMean = _ellipse?.MovedTo(mean).Measure(); // once, not once per record
         for (int i = 0; i < n; i++)
         {
             var c = Chromaticity.FromUPrimeVPrime(_u[i], _v[i]);
-            fromMeanValues[i] = aroundMean is not null ? aroundMean.Steps(c) : c.DeltaUPrimeVPrime(mean) / StandardEllipses.UPrimeVPrimePerStep;
+            fromMeanValues[i] = aroundMean is { } m ? m.Steps(c) : c.DeltaUPrimeVPrime(mean) / StandardEllipses.UPrimeVPrimePerStep;
             fromMean.Add(fromMeanValues[i]);
         }
         var fromTarget = new RunningStatistics();
