@@ -19,6 +19,29 @@ public class BatchCliTests
         return d;
     }
 
+    [Theory]
+    [InlineData("results")]
+    [InlineData("/dev/full")]
+    public void The_rows_scratch_file_is_gone_when_the_process_ends(string output)
+    {
+        // Rows stream to a scratch file in the temporary folder (TMPDIR), removed on another thread beside the output's
+        // flush (issue 16): it is gone when the process ends, after a written batch and after a failed write (exit 4).
+        var dir = TempDir();
+        var temp = Directory.CreateDirectory(Path.Combine(dir, "tmp")).FullName;
+        try
+        {
+            string results = output == "results" ? Path.Combine(dir, "r.csv") : output;
+            if (output != "results" && !File.Exists(output)) return; // no /dev/full on this system
+            var (code, _, err) = CultureTests.RunProcess(null, new Dictionary<string, string> { ["TMPDIR"] = temp },
+                "batch", Example("quillfern-dl30-lot-A17.csv"), "--spec", Example("spec-dl30.json"), "-o", results, "--summary", Path.Combine(dir, "s.txt"));
+            Assert.Equal(output == "results" ? ExitCodes.InputErrors : ExitCodes.OutputError, code);
+            Assert.DoesNotContain("scratch", err, StringComparison.Ordinal);
+            Assert.Empty(Directory.EnumerateFileSystemEntries(temp));
+            if (output == "results") Assert.Equal(241, File.ReadAllLines(results).Length);
+        }
+        finally { Directory.Delete(dir, true); }
+    }
+
     [Fact]
     public void Faulty_lot_reports_every_fault_and_loses_no_record()
     {

@@ -8,12 +8,16 @@ namespace Lumen.Cli.Tests;
 /// </summary>
 public class CultureTests
 {
-    private static (int Code, byte[] Out, string Err) RunProcess(string? culture, params string[] args)
+    private static (int Code, byte[] Out, string Err) RunProcess(string? culture, params string[] args) => RunProcess(culture, null, args);
+
+    /// <summary>Runs the built command in its own process (as a user would), with extra environment variables.</summary>
+    internal static (int Code, byte[] Out, string Err) RunProcess(string? culture, IReadOnlyDictionary<string, string>? environment, params string[] args)
     {
         var dll = Path.Combine(AppContext.BaseDirectory, "lumen.dll");
         var psi = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
         psi.ArgumentList.Add(dll);
         foreach (var a in args) psi.ArgumentList.Add(a);
+        foreach (var (key, value) in environment ?? new Dictionary<string, string>()) psi.Environment[key] = value;
         // Reports stamp the date; fix it (the reproducible-output convention) so runs a minute apart compare equal.
         psi.Environment["SOURCE_DATE_EPOCH"] = "1796083200";
         if (culture is not null)
