@@ -217,8 +217,8 @@ internal sealed class BatchCommand(TextReader stdin, TextWriter stdout, TextWrit
         var progress = new ReadProgress();
         long totalBytes = inputs.Files.Where(File.Exists).Sum(f => new FileInfo(f).Length);
 
-        // A reader thread, worker threads and this one, which writes rows and feeds the summary in input order while
-        // the next blocks are computed (RecordBlocks). Memory stays flat.
+        // This thread reads, writes rows and feeds the summary in input order, and computes blocks while it waits; worker
+        // threads compute the others (RecordBlocks). Memory stays flat.
         Exception? writeFailure = null;
         foreach (var item in RecordBlocks.Stream(inputs.Deferred(stdin, progress), options, spec, o => UncertaintyOptions.Propagate(o, options, spec, _model, _run, _rule), threads, interrupt))
         {

@@ -6,37 +6,42 @@ using Lumen.Conformance;
 namespace Lumen.Cli;
 
 /// <summary>
-/// How analyze and batch compute records (issue 16): a reader thread cuts the input into blocks of
+/// How analyze and batch compute records (issue 16): the caller's thread cuts the input into blocks of
 /// <see cref="BlockSize"/> records, worker threads parse and assess whole blocks (<see cref="RecordOutcome.OfMany"/>:
-/// one rendition pass per block), and the caller receives the outcomes in input order while the next blocks are being
-/// read and computed.
+/// one rendition pass per block), and the caller receives the outcomes in input order; while the oldest block is not
+/// done, the caller computes queued blocks itself, so <c>--threads N</c> is N threads computing: N − 1 workers and the
+/// caller.
 /// </summary>
 /// <remarks>
 /// Workers take blocks one after another with no barrier between groups of blocks (a chunk-at-a-time loop left a core
-/// idle at the end of every chunk), and at most <see cref="BlocksInFlightPerThread"/> blocks per worker are in flight,
+/// idle at the end of every chunk), and at most <see cref="BlocksInFlightPerThread"/> blocks per thread are read ahead,
 /// so memory stays flat and little survives a garbage collection (the collector copies what is alive: holding thousands
 /// of parsed spectra in queues made every collection cost tens of milliseconds). A record's outcome does not depend on
-/// the thread that computed it or on its block, so the output is the same for any thread count.
+/// the thread that computed it or on its block, so the output is the same for any thread count. Until 3 December a
+/// reader thread and N workers ran beside the caller: four busy threads on a 2-core machine, ~7,000–11,000 involuntary
+/// context switches for 20,000 rows (about 100 now), and when the virtual machine's host took a quarter of its processor
+/// time, two threads ran slower than one (see DEVELOPERS.md).
 /// </remarks>
 internal static class RecordBlocks
 {
     /// <summary>Records assessed together (one rendition block): 16 spectra share each pass over the sample weights.</summary>
     public const int BlockSize = 16;
 
-    /// <summary>Blocks read ahead per worker thread (work queued while the caller writes).</summary>
+    /// <summary>Blocks read ahead per computing thread (work queued while the caller writes).</summary>
     public const int BlocksInFlightPerThread = 4;
 
     /// <summary>
-    /// Every record's outcome, in input order, computed on <paramref name="threads"/> worker threads beside a reader
-    /// thread and the caller's; with one thread, everything runs on the caller's thread (<see cref="OnThisThread"/>).
+    /// Every record's outcome, in input order, computed on <paramref name="threads"/> threads: the caller's (which also
+    /// reads) and <paramref name="threads"/> − 1 workers; with one thread, everything runs on the caller's thread
+    /// (<see cref="OnThisThread"/>).
     /// </summary>
-    /// <param name="deferred">Deferred records (each parses its row when called, on a worker).</param>
+    /// <param name="deferred">Deferred records (each parses its row when called, on the thread that computes its block).</param>
     /// <param name="options">What to compute.</param>
     /// <param name="spec">The specification, or null.</param>
-    /// <param name="then">Applied to each outcome on its worker (e.g. the uncertainty of its results).</param>
-    /// <param name="threads">Worker threads (at least one).</param>
+    /// <param name="then">Applied to each outcome on the thread that computed it (e.g. the uncertainty of its results).</param>
+    /// <param name="threads">Computing threads, the caller's included (at least one).</param>
     /// <param name="interrupt">When cancelled, no further record is read; the records already read are still computed and returned.</param>
-    /// <returns>The outcomes, streamed. Stopping the enumeration early stops the reader and the workers.</returns>
+    /// <returns>The outcomes, streamed. Stopping the enumeration early stops the reading and the workers.</returns>
     public static IEnumerable<RecordOutcome> Stream(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads, CancellationToken interrupt = default)
     {
         ArgumentNullException.ThrowIfNull(deferred);
@@ -86,80 +91,69 @@ internal static class RecordBlocks
     /// <summary><see cref="Stream"/> with worker threads (see the class remarks).</summary>
     private static IEnumerable<RecordOutcome> OnWorkers(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, int threads, CancellationToken interrupt)
     {
-        using var stop = new CancellationTokenSource();
-        using var inOrder = new BlockingCollection<Block>(BlocksInFlightPerThread * threads);
         using var toCompute = new BlockingCollection<Block>();
+        var inOrder = new Queue<Block>(); // read and not yet returned, in input order (this thread's only)
+        using var source = deferred.GetEnumerator();
+        bool ended = false;
         Exception? readFailure = null;
+        int window = BlocksInFlightPerThread * threads;
 
-        var reader = new Thread(() =>
-        {
-            var items = new List<Func<InputRecord>>(BlockSize);
-            void Send()
-            {
-                var block = new Block([.. items]);
-                items.Clear();
-                inOrder.Add(block, stop.Token); // waits while the window is full
-                toCompute.Add(block);
-            }
-            try
-            {
-                try
-                {
-                    foreach (var item in deferred)
-                    {
-                        if (interrupt.IsCancellationRequested || stop.IsCancellationRequested) break;
-                        items.Add(item);
-                        if (items.Count == BlockSize) Send();
-                    }
-                }
-                catch (Exception ex) when (!stop.IsCancellationRequested)
-                {
-                    readFailure = ex; // after the records read before it
-                }
-                if (items.Count > 0 && !stop.IsCancellationRequested) Send();
-            }
-            catch (OperationCanceledException) when (stop.IsCancellationRequested) { }
-            finally
-            {
-                toCompute.CompleteAdding();
-                inOrder.CompleteAdding();
-            }
-        }) { IsBackground = true, Name = "lumen reader" };
-
-        var workers = new Thread[threads];
-        for (int t = 0; t < threads; t++)
+        var workers = new Thread[threads - 1];
+        for (int t = 0; t < workers.Length; t++)
         {
             workers[t] = new Thread(() =>
             {
-                foreach (var block in toCompute.GetConsumingEnumerable())
-                {
-                    try
-                    {
-                        if (!stop.IsCancellationRequested) block.Results = Compute(block.Items, options, spec, then);
-                    }
-                    catch (Exception ex) { block.Failure = ex; }
-                    finally { block.Done.Set(); }
-                }
+                foreach (var block in toCompute.GetConsumingEnumerable()) block.Run(options, spec, then);
             }) { IsBackground = true, Name = $"lumen worker {t + 1}" };
+            workers[t].Start();
         }
-
-        reader.Start();
-        foreach (var w in workers) w.Start();
         try
         {
-            foreach (var block in inOrder.GetConsumingEnumerable())
+            while (true)
             {
-                block.Done.Wait();
-                block.Done.Dispose();
-                if (block.Failure is { } failure) ExceptionDispatchInfo.Throw(failure);
-                foreach (var outcome in block.Results!) yield return outcome;
+                // Read ahead up to the window, then return the oldest block, computing queued blocks while it is not done.
+                while (!ended && inOrder.Count < window)
+                {
+                    var items = new List<Func<InputRecord>>(BlockSize);
+                    try
+                    {
+                        while (items.Count < BlockSize)
+                        {
+                            if (interrupt.IsCancellationRequested || !source.MoveNext())
+                            {
+                                ended = true;
+                                break;
+                            }
+                            items.Add(source.Current);
+                        }
+                    }
+                    catch (Exception ex)
+                    {
+                        readFailure = ex; // after the records read before it
+                        ended = true;
+                    }
+                    if (items.Count == 0) break;
+                    var block = new Block([.. items]);
+                    inOrder.Enqueue(block);
+                    toCompute.Add(block);
+                }
+                if (ended && !toCompute.IsAddingCompleted) toCompute.CompleteAdding();
+                if (inOrder.Count == 0) break;
+                var head = inOrder.Peek();
+                while (!head.Done.IsSet && toCompute.TryTake(out var queued)) queued.Run(options, spec, then);
+                head.Done.Wait();
+                inOrder.Dequeue();
+                head.Done.Dispose();
+                if (head.Failure is { } failure) ExceptionDispatchInfo.Throw(failure);
+                foreach (var outcome in head.Results!) yield return outcome;
             }
             if (readFailure is not null) ExceptionDispatchInfo.Throw(readFailure);
         }
         finally
         {
-            stop.Cancel(); // an early stop: the reader stops adding, the workers skip what is left
-            reader.Join();
+            // An early stop: nothing more is read, the blocks not yet started are dropped, the workers finish theirs.
+            if (!toCompute.IsAddingCompleted) toCompute.CompleteAdding();
+            while (toCompute.TryTake(out _)) { }
             foreach (var w in workers) w.Join();
         }
     }
@@ -178,12 +172,21 @@ internal static class RecordBlocks
         return outcomes;
     }
 
-    /// <summary>A block of records: its items, then its outcomes once a worker has computed them.</summary>
+    /// <summary>A block of records: its items, then its outcomes once a thread has computed them.</summary>
     private sealed class Block(Func<InputRecord>[] items)
     {
         public Func<InputRecord>[] Items { get; } = items;
-        public RecordOutcome[]? Results { get; set; }
-        public Exception? Failure { get; set; }
+        public RecordOutcome[]? Results { get; private set; }
+        public Exception? Failure { get; private set; }
         public ManualResetEventSlim Done { get; } = new(false);
+
+        /// <summary>Computes the block on the calling thread (a worker, or the caller while it waits); a failure is kept
+        /// for the caller, in order.</summary>
+        public void Run(AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then)
+        {
+            try { Results = Compute(Items, options, spec, then); }
+            catch (Exception ex) { Failure = ex; }
+            finally { Done.Set(); }
+        }
     }
 }

@@ -41,9 +41,36 @@ public class RecordBlocksTests
         }
         Assert.Equal(100, RecordBlocks.Stream(Recorded(), Options, null, o => o, 1).Count());
         Assert.Equal([caller], threadsSeen);
-        threadsSeen.Clear();
-        Assert.Equal(100, RecordBlocks.Stream(Recorded(), Options, null, o => o, 2).Count());
-        Assert.DoesNotContain(caller, threadsSeen); // with workers, neither reading nor parsing is on the caller's thread
+    }
+
+    [Theory]
+    [InlineData(2)]
+    [InlineData(4)]
+    public void N_threads_are_the_caller_and_N_minus_1_workers(int threads)
+    {
+        // --threads N computes on N threads (issue 16): the caller reads, and computes queued blocks while the oldest is
+        // not done; N − 1 workers compute the rest. No reader thread beside them.
+        int caller = Environment.CurrentManagedThreadId;
+        var readers = new HashSet<int>();
+        var parsers = new HashSet<int>();
+        IEnumerable<Func<InputRecord>> Recorded()
+        {
+            for (int i = 0; i < 4000; i++)
+            {
+                lock (readers) readers.Add(Environment.CurrentManagedThreadId);
+                var item = Item(i);
+                yield return () =>
+                {
+                    lock (parsers) parsers.Add(Environment.CurrentManagedThreadId);
+                    Thread.SpinWait(2000); // long enough that the caller finds blocks waiting
+                    return item();
+                };
+            }
+        }
+        Assert.Equal(4000, RecordBlocks.Stream(Recorded(), Options, null, o => o, threads).Count());
+        Assert.Equal([caller], readers);
+        Assert.InRange(parsers.Count, 2, threads);
+        Assert.Contains(parsers, id => id != caller);
     }
 
     [Theory]
