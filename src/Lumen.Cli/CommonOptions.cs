@@ -9,7 +9,7 @@ internal static class CommonOptions
 {
     /// <summary>The --threads option: worker threads, default all cores; 1 computes on the main thread alone.</summary>
     /// <returns>A new option.</returns>
-    public static Option<int> Threads() => new Option<int>("--threads") { Description = "Worker threads (default: all cores); 1 runs everything on one thread.", DefaultValueFactory = _ => Environment.ProcessorCount }.Strict("4");
+    public static Option<int> Threads() => new Option<int>("--threads") { Description = "Computing threads, the main one included (default: all cores); 1 runs everything on one thread.", DefaultValueFactory = _ => Environment.ProcessorCount }.Strict("4");
 
     /// <summary>A <c>--format</c> option accepting <paramref name="formats"/> (the first is the default).</summary>
     public static Option<string> Format(params string[] formats)
