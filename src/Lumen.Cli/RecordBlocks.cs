@@ -56,35 +56,34 @@ internal static class RecordBlocks
     private static IEnumerable<RecordOutcome> OnThisThread(IEnumerable<Func<InputRecord>> deferred, AssessmentOptions options, PreparedSpec? spec, Func<RecordOutcome, RecordOutcome> then, CancellationToken interrupt)
     {
         using var source = deferred.GetEnumerator();
-        var items = new List<Func<InputRecord>>(BlockSize);
         bool ended = false;
         while (!ended)
         {
-            Exception? readFailure = null;
-            try
+            var (items, end, readFailure) = ReadBlock(source, interrupt);
+            ended = end;
+            if (items.Length > 0)
+                foreach (var outcome in Compute(items, options, spec, then)) yield return outcome;
+            if (readFailure is not null) ExceptionDispatchInfo.Throw(readFailure); // after the records read before it
+        }
+    }
+
+    /// <summary>Reads the next block's records: up to <see cref="BlockSize"/>, fewer at the end, at an interrupt or at a
+    /// read failure (returned with the records read before it).</summary>
+    private static (Func<InputRecord>[] Items, bool Ended, Exception? Failure) ReadBlock(IEnumerator<Func<InputRecord>> source, CancellationToken interrupt)
+    {
+        var items = new List<Func<InputRecord>>(BlockSize);
+        try
+        {
+            while (items.Count < BlockSize)
             {
-                while (items.Count < BlockSize)
-                {
-                    if (interrupt.IsCancellationRequested || !source.MoveNext())
-                    {
-                        ended = true;
-                        break;
-                    }
-                    items.Add(source.Current);
-                }
+                if (interrupt.IsCancellationRequested || !source.MoveNext()) return ([.. items], true, null);
+                items.Add(source.Current);
             }
-            catch (Exception ex)
-            {
-                readFailure = ex; // after the records read before it
-                ended = true;
-            }
-            if (items.Count > 0)
-            {
-                var outcomes = Compute([.. items], options, spec, then);
-                items.Clear();
-                foreach (var outcome in outcomes) yield return outcome;
-            }
-            if (readFailure is not null) ExceptionDispatchInfo.Throw(readFailure);
+            return ([.. items], false, null);
+        }
+        catch (Exception ex)
+        {
+            return ([.. items], true, ex);
         }
     }
 
@@ -114,26 +113,11 @@ internal static class RecordBlocks
                 // Read ahead up to the window, then return the oldest block, computing queued blocks while it is not done.
                 while (!ended && inOrder.Count < window)
                 {
-                    var items = new List<Func<InputRecord>>(BlockSize);
-                    try
-                    {
-                        while (items.Count < BlockSize)
-                        {
-                            if (interrupt.IsCancellationRequested || !source.MoveNext())
-                            {
-                                ended = true;
-                                break;
-                            }
-                            items.Add(source.Current);
-                        }
-                    }
-                    catch (Exception ex)
-                    {
-                        readFailure = ex; // after the records read before it
-                        ended = true;
-                    }
-                    if (items.Count == 0) break;
-                    var block = new Block([.. items]);
+                    var (items, end, failure) = ReadBlock(source, interrupt);
+                    ended = end;
+                    readFailure = failure; // thrown after the records read before it
+                    if (items.Length == 0) break;
+                    var block = new Block(items);
                     inOrder.Enqueue(block);
                     toCompute.Add(block);
                 }
@@ -144,7 +128,7 @@ internal static class RecordBlocks
                 head.Done.Wait();
                 inOrder.Dequeue();
                 head.Done.Dispose();
-                if (head.Failure is { } failure) ExceptionDispatchInfo.Throw(failure);
+                if (head.Failure is { } computeFailure) ExceptionDispatchInfo.Throw(computeFailure);
                 foreach (var outcome in head.Results!) yield return outcome;
             }
             if (readFailure is not null) ExceptionDispatchInfo.Throw(readFailure);
