@@ -7,7 +7,7 @@ namespace Lumen.Cli;
 /// <summary>Option factories and small helpers that several verbs share.</summary>
 internal static class CommonOptions
 {
-    /// <summary>The --threads option: worker threads, default all cores; 1 computes on the main thread alone.</summary>
+    /// <summary>The --threads option: computing threads, the main one included; default all cores; 1 computes on the main thread alone.</summary>
     /// <returns>A new option.</returns>
     public static Option<int> Threads() => new Option<int>("--threads") { Description = "Computing threads, the main one included (default: all cores); 1 runs everything on one thread.", DefaultValueFactory = _ => Environment.ProcessorCount }.Strict("4");
 

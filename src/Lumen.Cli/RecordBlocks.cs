@@ -18,8 +18,8 @@ namespace Lumen.Cli;
 /// so memory stays flat and little survives a garbage collection (the collector copies what is alive: holding thousands
 /// of parsed spectra in queues made every collection cost tens of milliseconds). A record's outcome does not depend on
 /// the thread that computed it or on its block, so the output is the same for any thread count. Until 3 December a
-/// reader thread and N workers ran beside the caller: four busy threads on a 2-core machine, ~7,000–11,000 involuntary
-/// context switches for 20,000 rows (about 100 now), and when the virtual machine's host took a quarter of its processor
+/// reader thread and N workers ran beside the caller: four busy threads on a 2-core machine, 5,800–11,000 involuntary
+/// context switches for 20,000 rows (30–110 now), and when the virtual machine's host took a quarter of its processor
 /// time, two threads ran slower than one (see DEVELOPERS.md).
 /// </remarks>
 internal static class RecordBlocks
