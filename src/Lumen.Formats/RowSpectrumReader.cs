@@ -96,27 +96,21 @@ public static class RowSpectrumReader
     private static string MetadataName(string[] header, int i) => header[i].Length > 0 ? header[i] : $"column{i + 1}";
 
     /// <summary>Index of the first wavelength cell of a row-layout header, or -1.</summary>
-    private static int WavelengthStart(string[] cells, char d)
-    {
-        int k = cells.Length;
-        double next = double.PositiveInfinity;
-        while (k > 0 && DelimitedSpectrumReader.TryParseNumber(cells[k - 1], d, out double w) && w > 100 && w < 5000 && w < next)
-        {
-            next = w;
-            k--;
-        }
-        return cells.Length - k >= MinimumWavelengths ? k : -1;
-    }
+    private static int WavelengthStart(string[] cells, char d) => WavelengthRun(cells, d, descending: false);
 
     /// <summary>Index of the first cell of a run of at least <see cref="MinimumWavelengths"/> strictly descending
     /// wavelengths (100–5000 nm) that ends the row, or -1.</summary>
-    private static int DescendingStart(string[] cells, char d)
+    private static int DescendingStart(string[] cells, char d) => WavelengthRun(cells, d, descending: true);
+
+    /// <summary>Index of the first cell of the run of wavelengths (100–5000 nm, strictly ascending, or descending)
+    /// that ends the row, when it holds at least <see cref="MinimumWavelengths"/> of them; else -1.</summary>
+    private static int WavelengthRun(string[] cells, char d, bool descending)
     {
         int k = cells.Length;
-        double previous = double.NegativeInfinity;
-        while (k > 0 && DelimitedSpectrumReader.TryParseNumber(cells[k - 1], d, out double w) && w > 100 && w < 5000 && w > previous)
+        double after = descending ? double.NegativeInfinity : double.PositiveInfinity; // the cell to the right
+        while (k > 0 && DelimitedSpectrumReader.TryParseNumber(cells[k - 1], d, out double w) && w > 100 && w < 5000 && (descending ? w > after : w < after))
         {
-            previous = w;
+            after = w;
             k--;
         }
         return cells.Length - k >= MinimumWavelengths ? k : -1;
