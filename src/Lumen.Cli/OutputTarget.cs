@@ -83,10 +83,11 @@ internal static class OutputTarget
         if (IsDevice(full)) return WriteInPlace(path, full, write);
         try
         {
-            using (var stream = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None, 1 << 16))
+            using (var file = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None, 1 << 16))
+            using (var stream = new EarlyWriteback(file))
             {
                 write(stream);
-                stream.Flush(flushToDisk: true);
+                stream.Complete(); // on disk before it replaces the target
             }
             File.Move(temp, partial?.Invoke() == true ? PartialPath(full) : full, overwrite: true);
             return null;
