@@ -90,7 +90,7 @@ public static class BatchScale
     /// <summary>Publishes the command-line tool for this machine's platform into <paramref name="folder"/>: ReadyToRun (as
     /// the README's single-file build is), or with <paramref name="native"/> the NativeAOT build at its default instruction
     /// set; returns the executable, or null when publishing fails.</summary>
-    private static string? PublishPrecompiled(string folder, bool native)
+    internal static string? PublishPrecompiled(string folder, bool native)
     {
         var project = Path.Combine(BenchPaths.Root, "src", "Lumen.Cli", "Lumen.Cli.csproj");
         string[] kind = native ? ["-p:PublishAot=true"] : ["--self-contained", "false"];
@@ -109,7 +109,7 @@ public static class BatchScale
     }
 
     /// <summary>Reads a file through once (into the page cache) before a timed child reads it.</summary>
-    private static void Warm(string path)
+    internal static void Warm(string path)
     {
         using var f = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 20);
         var buffer = new byte[1 << 20];
@@ -258,7 +258,7 @@ public static class BatchScale
         lines.Add("");
         string nativeScaling = results.Any(r => r.Label == NativeFull)
             ? string.Create(CultureInfo.InvariantCulture, $"; native build {Of(NativeFull1) / Of(NativeFull):0.00}× and {Of(NativeChroma1) / Of(NativeChroma):0.00}×.") : ".";
-        lines.Add(string.Create(CultureInfo.InvariantCulture, $"Scaling, {Environment.ProcessorCount} cores against one ({(Pinning ? "pinned with taskset -c 0" : "--threads 1; the reader and writer threads still run beside it")}), same run: full spec {Of(Modes[1].Label) / Of(Modes[0].Label):0.00}×, chromaticity-only {Of(Modes[3].Label) / Of(Modes[2].Label):0.00}×") + nativeScaling);
+        lines.Add(string.Create(CultureInfo.InvariantCulture, $"Scaling, {Environment.ProcessorCount} cores against one ({(Pinning ? "pinned with taskset -c 0" : "--threads 1, where there is no taskset")}), same run: full spec {Of(Modes[1].Label) / Of(Modes[0].Label):0.00}×, chromaticity-only {Of(Modes[3].Label) / Of(Modes[2].Label):0.00}×") + nativeScaling);
         lines.Add("");
         lines.Add("Targets (issue 16): full spec ≤ 1.5× Sep's time, chromaticity-only ≤ 0.5× Sep's time, --threads 2 ≥ 1.7× --threads 1.");
         string name = rows == 20000 && stepNm == 5 ? "batch.md" : rows == 20000 ? $"batch-{stepNm}nm.md" : $"batch-{rows / 1000}k-{stepNm}nm.md";

@@ -19,6 +19,14 @@ public static class Program
             BatchScale.Run(plain.Length > 0 ? int.Parse(plain[0], CultureInfo.InvariantCulture) : 1_000_000, plain.Length > 1 ? int.Parse(plain[1], CultureInfo.InvariantCulture) : 5, Math.Max(1, repeat));
             return;
         }
+        if (args.Length >= 1 && args[0] == "thread-scale")
+        {
+            // thread-scale [rows] [--rounds N]
+            int rounds = Array.IndexOf(args, "--rounds") is int r and > 0 && r + 1 < args.Length ? int.Parse(args[r + 1], CultureInfo.InvariantCulture) : 15;
+            var plain = args.Skip(1).TakeWhile(a => a != "--rounds").ToArray();
+            ThreadScale.Run(plain.Length > 0 ? int.Parse(plain[0], CultureInfo.InvariantCulture) : 20_000, Math.Max(1, rounds));
+            return;
+        }
         if (args.Length >= 5 && args[0] == "batch-child") { BatchScale.Child(args[1], args[2], args[3], args[4]); return; }
         var results = Path.GetFullPath(Path.Combine(FindRoot(), "bench", "results"));
         var config = DefaultConfig.Instance
